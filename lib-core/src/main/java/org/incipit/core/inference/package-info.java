@@ -1,0 +1,2 @@
+/** Intervals, bootstrap, information criteria; results as records. */
+package org.incipit.core.inference;
