@@ -19,7 +19,7 @@ import org.slf4j.LoggerFactory;
  * Alg. 6.1 and eq. 6.20). {@link Method#NEWTON}: damped Newton on the analytic Hessian if the
  * likelihood has one, else on central differences of the analytic gradient; the Hessian of
  * &minus;l is made positive definite by replacing each eigenvalue &lambda; by
- * max(|&lambda;|, 1e-8 max|&lambda;|) (Nocedal &amp; Wright 2006, sec. 3.4).
+ * max(|&lambda;|, 1e-14 max|&lambda;|) (Nocedal &amp; Wright 2006, sec. 3.4).
  * Both use a backtracking Armijo line search (sufficient increase c1 = 1e-4, step halving;
  * a non-finite value or NaN counts as a failed trial, so the search backs off from
  * {@code -Infinity} regions).
@@ -371,7 +371,7 @@ public final class Maximiser {
                 "iteration limit " + maxIterations + " reached; relative gradient " + rg);
     }
 
-    /** d = (modified -H)^-1 g with eigenvalues of -H replaced by max(|lambda|, 1e-8 max|lambda|). */
+    /** d = (modified -H)^-1 g with eigenvalues of -H replaced by max(|lambda|, 1e-14 max|lambda|). */
     private static boolean modifiedNewtonDirection(double[] hessianOfL, double[] g, double[] d, int k) {
         double[] a = new double[k * k];
         for (int i = 0; i < k * k; i++) {
@@ -390,7 +390,7 @@ public final class Maximiser {
         }
         java.util.Arrays.fill(d, 0);
         for (int e = 0; e < k; e++) {
-            double lambda = Math.max(Math.abs(eig.getEigenvalue(e).real), 1e-8 * maxAbs);
+            double lambda = Math.max(Math.abs(eig.getEigenvalue(e).real), 1e-14 * maxAbs);
             DMatrixRMaj v = eig.getEigenVector(e);
             double proj = 0;
             for (int i = 0; i < k; i++) {
