@@ -20,16 +20,19 @@ import org.slf4j.LoggerFactory;
  * likelihood has one, else on central differences of the analytic gradient; the Hessian of
  * &minus;l is made positive definite by replacing each eigenvalue &lambda; by
  * max(|&lambda;|, 1e-14 max|&lambda;|) (Nocedal &amp; Wright 2006, sec. 3.4).
- * Both use a backtracking Armijo line search (sufficient increase c1 = 1e-4, step halving;
- * a non-finite value or NaN counts as a failed trial, so the search backs off from
- * {@code -Infinity} regions).
+ * Both use a backtracking line search: a step is accepted on Armijo sufficient increase
+ * (c1 = 1e-4) or, where value differences are at rounding level, on the approximate-Wolfe test
+ * of Hager &amp; Zhang (2005, SIAM J. Optim. 16:170); otherwise the step is halved. A non-finite
+ * value or NaN counts as a failed trial (step times 0.1), so the search backs off from
+ * {@code -Infinity} regions.
  *
  * <p><b>Convergence.</b> Converged when the relative gradient
  * max_i |g_i| max(1, |theta_i|) / max(1, |l|) &le; {@code gradientTolerance}
  * (Dennis &amp; Schnabel 1983, sec. 7.2). The iteration also stops, without convergence unless
  * the relative gradient is below {@code 1000 * gradientTolerance}, when the line search cannot
  * increase the value or when both the relative value change and the relative step are below
- * machine precision; the message says which. Reaching {@code maxIterations}, or a value that
+ * machine precision (BFGS first restarts once from the identity inverse Hessian); the message
+ * says which. Reaching {@code maxIterations}, or a value that
  * keeps increasing without bound (|theta| beyond 1e8 or l beyond 1e300), is reported as
  * non-convergence.
  */
@@ -219,6 +222,7 @@ public final class Maximiser {
         }
         double[] hinv = identity(k);
         boolean scaled = false;
+        boolean justReset = false;
         double[] d = new double[k];
         double[] xn = new double[k];
         double[] gn = new double[k];
@@ -253,7 +257,7 @@ public final class Maximiser {
                     xn[i] = x[i] + alpha * d[i];
                 }
                 fn = eval(ll, xn, gn, run);
-                if (Double.isFinite(fn) && fn >= f + ARMIJO * alpha * slope) {
+                if (acceptable(f, fn, alpha, slope, dot(gn, d))) {
                     accepted = true;
                     break;
                 }
@@ -291,9 +295,18 @@ public final class Maximiser {
             if (valueRel <= Math.ulp(1.0) && stepRel <= Math.ulp(1.0)) {
                 double rgn = relativeGradient(x, g, f);
                 boolean ok = rgn <= 1000 * gradientTolerance;
-                return new Optimum(x, f, g, it + 1, run.evaluations, ok || rgn <= gradientTolerance,
+                if (!ok && !justReset) {
+                    // stalled on a badly scaled inverse-Hessian estimate: restart from a
+                    // unit-length steepest-ascent step before giving up
+                    hinv = identity(k);
+                    scaled = false;
+                    justReset = true;
+                    continue;
+                }
+                return new Optimum(x, f, g, it + 1, run.evaluations, ok,
                         "value and step changes below machine precision; relative gradient " + rgn);
             }
+            justReset = false;
         }
         double rg = relativeGradient(x, g, f);
         return new Optimum(x, f, g, maxIterations, run.evaluations, rg <= gradientTolerance,
@@ -339,7 +352,7 @@ public final class Maximiser {
                     xn[i] = x[i] + alpha * d[i];
                 }
                 fn = eval(ll, xn, gn, run);
-                if (Double.isFinite(fn) && fn >= f + ARMIJO * alpha * slope) {
+                if (acceptable(f, fn, alpha, slope, dot(gn, d))) {
                     accepted = true;
                     break;
                 }
@@ -406,6 +419,21 @@ public final class Maximiser {
             }
         }
         return true;
+    }
+
+    /**
+     * Armijo sufficient increase, or (near the optimum, where value differences drown in
+     * rounding) the approximate-Wolfe test of Hager &amp; Zhang (2005): value not below f by more
+     * than 1e-14|f| and the directional derivative reduced to at most 0.9 of its initial size.
+     */
+    private static boolean acceptable(double f, double fn, double alpha, double slope, double slopeNew) {
+        if (!Double.isFinite(fn)) {
+            return false;
+        }
+        if (fn >= f + ARMIJO * alpha * slope) {
+            return true;
+        }
+        return fn >= f - 1e-14 * Math.abs(f) && Math.abs(slopeNew) <= 0.9 * slope;
     }
 
     private static double eval(LogLikelihood ll, double[] x, double[] g, Run run) {

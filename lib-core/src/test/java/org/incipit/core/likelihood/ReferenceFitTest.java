@@ -87,4 +87,18 @@ class ReferenceFitTest {
         assertRelative(ref("binomial.lr95.upper"), prof.upper(), 1e-8, "LR upper");
         assertEquals("profile", prof.method());
     }
+
+    @ParameterizedTest
+    @EnumSource(Maximiser.Method.class)
+    void weibullFromFarStart(Maximiser.Method method) {
+        // start shape e^3 = 20, scale e^-3 = 0.05: log-likelihood about -4e17, gradient ~1e19
+        double[] x = TestLikelihoods.readColumn(DIR + "weibull_data.csv");
+        Parameterisation p = Parameterisation.of(List.of("shape", "scale"),
+                List.of(ParameterTransform.log(), ParameterTransform.log()));
+        Optimum o = Maximiser.of(method, 1000, 1e-9).maximise(p.unconstrained(TestLikelihoods.weibull(x)),
+                new double[] {3, -3});
+        assertTrue(o.converged(), o.toString());
+        assertEquals(ref("weibull.loglik"), o.value(), 1e-8, "log-likelihood to 1e-8");
+        assertRelative(ref("weibull.shape"), Math.exp(o.argmax()[0]), 1e-6, "shape");
+    }
 }
