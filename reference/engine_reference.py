@@ -98,6 +98,18 @@ lo = mp.findroot(lambda k: 2 * (lw - prof_w(k)) - crit, k_hat * 0.85)
 hi = mp.findroot(lambda k: 2 * (lw - prof_w(k)) - crit, k_hat * 1.15)
 put("weibull.profile95.shape.lower", lo); put("weibull.profile95.shape.upper", hi)
 
+# Profile likelihood interval for the derived Weibull mean m = scale * Gamma(1 + 1/shape):
+# for fixed m, scale = m / Gamma(1 + 1/k) and the shape is re-maximised (root of d/dk).
+def prof_mean(m):
+    f = lambda k: ll_weibull(k, m / mp.gamma(1 + 1 / k))
+    k = mp.findroot(lambda kk: mp.diff(f, kk), k_hat)
+    return f(k)
+m_hat = l_hat * mp.gamma(1 + 1 / k_hat)
+lo = mp.findroot(lambda m: 2 * (lw - prof_mean(m)) - crit, m_hat * 0.9)
+hi = mp.findroot(lambda m: 2 * (lw - prof_mean(m)) - crit, m_hat * 1.1)
+put("weibull.mean", m_hat)
+put("weibull.profile95.mean.lower", lo); put("weibull.profile95.mean.upper", hi)
+
 # --- Gamma (shape, rate) ---
 a, loc, gscale = st.gamma.fit(gam, floc=0)
 res = so.minimize(lambda p: -float(ll_gamma(mp.mpf(p[0]), mp.mpf(p[1]))), [a, 1 / gscale],

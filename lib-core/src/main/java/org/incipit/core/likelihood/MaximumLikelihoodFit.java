@@ -351,6 +351,162 @@ public final class MaximumLikelihoodFit {
         return profile(parameterisation.indexOf(name), level);
     }
 
+    /**
+     * Profile-likelihood interval for a derived quantity q = f(natural parameters): the set of
+     * c with max{ l(theta) : q(theta) = c } &ge; l_hat &minus; chi&sup2;_1(level)/2. The constrained
+     * maximum is found by the augmented-Lagrangian method (Nocedal &amp; Wright 2006, Alg. 17.4;
+     * penalty starting at 10/se&sup2;, times 10 until |q &minus; c| &le; 1e-10 max(1, |c|); gradient
+     * of q by central differences in u), warm-started from the neighbouring point. Bounds are
+     * bracketed by steps from q_hat growing by 1.6 (first step the delta-method standard error,
+     * or 0.1 max(1, |q_hat|)) and refined by Brent's method to 1e-10 relative. A value c that
+     * q cannot reach counts as below the threshold, so a bound may be the edge of q's range.
+     * If the drop is not reached after 40 steps the bound is &plusmn;&infin;.
+     *
+     * @param quantity derived quantity of the natural vector (which it must not keep); finite near the estimate
+     * @param level    coverage in (0, 1)
+     * @return the interval, method "profile"
+     * @throws EstimationException if the fit did not converge, q is not finite at the estimate,
+     *                             or a profile point exceeds the maximum
+     */
+    public Estimate profile(ToDoubleFunction<double[]> quantity, double level) {
+        requireConverged();
+        if (!(level > 0 && level < 1)) {
+            throw new IllegalArgumentException("level must be in (0, 1), was " + level);
+        }
+        double target = logLikelihood() - 0.5 * ChiSquaredDistribution.of(1).inverseCumulativeProbability(level);
+        ToDoubleFunction<double[]> q = u -> quantity.applyAsDouble(parameterisation.toNatural(u));
+        double qHat = q.applyAsDouble(optimum.argmax());
+        if (!Double.isFinite(qHat)) {
+            throw new EstimationException("derived quantity is not finite at the estimate: " + qHat);
+        }
+        double se = Double.NaN;
+        if (covariance != null) {
+            double[] g = Derivatives.numericalGradient(q, optimum.argmax());
+            double var = 0;
+            int k = g.length;
+            for (int a = 0; a < k; a++) {
+                for (int b = 0; b < k; b++) {
+                    var += g[a] * covariance[a * k + b] * g[b];
+                }
+            }
+            se = Math.sqrt(var);
+        }
+        if (!(se > 0 && Double.isFinite(se))) {
+            se = 0.1 * Math.max(1, Math.abs(qHat));
+        }
+        double lower = derivedBound(q, qHat, -se, target);
+        double upper = derivedBound(q, qHat, se, target);
+        return new Estimate(qHat, lower, upper, level, "profile");
+    }
+
+    private double derivedBound(ToDoubleFunction<double[]> q, double qHat, double step, double target) {
+        ConstrainedProfile p = new ConstrainedProfile(q, Math.abs(step));
+        double inner = qHat;
+        double delta = step;
+        for (int j = 0; j < 40; j++) {
+            double c = qHat + delta;
+            if (p.value(c) < target) {
+                double a = Math.min(inner, c);
+                double b = Math.max(inner, c);
+                double tol = 1e-10 * Math.max(Math.abs(a), Math.abs(b));
+                return new BrentSolver(tol, 1e-14, 0).findRoot(x -> p.value(x) - target, a, b);
+            }
+            inner = c;
+            delta *= 1.6;
+        }
+        return Math.signum(step) * Double.POSITIVE_INFINITY;
+    }
+
+    /** max l subject to q = c by augmented Lagrangian; warm-started; not thread-safe. */
+    private final class ConstrainedProfile {
+        private final ToDoubleFunction<double[]> q;
+        private final double scale;
+        private double[] theta = optimum.argmax();
+
+        ConstrainedProfile(ToDoubleFunction<double[]> q, double scale) {
+            this.q = q;
+            this.scale = scale;
+        }
+
+        double value(double c) {
+            double mu = 10 / (scale * scale);
+            double lambda = 0;
+            double[] t = theta.clone();
+            double tol = 1e-10 * Math.max(1, Math.abs(c));
+            double lastViolation = Double.POSITIVE_INFINITY;
+            for (int outer = 0; outer < 40; outer++) {
+                LogLikelihood aug = new Augmented(c, lambda, mu);
+                if (!Double.isFinite(aug.value(t))) {
+                    t = optimum.argmax();
+                }
+                Optimum o = maximiser.maximise(aug, t);
+                t = o.argmax();
+                double r = q.applyAsDouble(t) - c;
+                if (!Double.isFinite(r)) {
+                    return Double.NEGATIVE_INFINITY;
+                }
+                if (Math.abs(r) <= tol && o.converged()) {
+                    theta = t;
+                    double v = likelihood.value(t);
+                    if (v > logLikelihood() + 1e-6 * Math.max(1, Math.abs(logLikelihood()))) {
+                        throw new EstimationException("profile of the derived quantity at " + c + " has log-likelihood "
+                                + v + " above the fitted maximum " + logLikelihood()
+                                + "; the fit is not the global maximum (try more starts)");
+                    }
+                    LOG.debug("derived profile at {}: {} after {} outer iterations", c, v, outer + 1);
+                    return v;
+                }
+                lambda += mu * r;
+                if (Math.abs(r) > 0.25 * lastViolation) {
+                    mu *= 10;
+                }
+                lastViolation = Math.abs(r);
+                if (mu > 1e14 / (scale * scale)) {
+                    break;
+                }
+            }
+            LOG.debug("derived profile at {}: constraint not met (value treated as -Infinity)", c);
+            return Double.NEGATIVE_INFINITY;
+        }
+
+        private final class Augmented implements LogLikelihood {
+            private final double c;
+            private final double lambda;
+            private final double mu;
+
+            Augmented(double c, double lambda, double mu) {
+                this.c = c;
+                this.lambda = lambda;
+                this.mu = mu;
+            }
+
+            @Override
+            public int dimension() {
+                return likelihood.dimension();
+            }
+
+            @Override
+            public double value(double[] t) {
+                double r = q.applyAsDouble(t) - c;
+                return likelihood.value(t) - lambda * r - 0.5 * mu * r * r;
+            }
+
+            @Override
+            public double valueAndGradient(double[] t, double[] g) {
+                double v = likelihood.valueAndGradient(t, g);
+                if (!Double.isFinite(v)) {
+                    return v;
+                }
+                double r = q.applyAsDouble(t) - c;
+                double[] dq = Derivatives.numericalGradient(q, t);
+                for (int i = 0; i < g.length; i++) {
+                    g[i] -= (lambda + mu * r) * dq[i];
+                }
+                return v - lambda * r - 0.5 * mu * r * r;
+            }
+        }
+    }
+
     private static final double PROFILE_REACH = 40;
 
     private double profileBound(int i, double uHat, double step, double target) {

@@ -101,4 +101,26 @@ class ReferenceFitTest {
         assertEquals(ref("weibull.loglik"), o.value(), 1e-8, "log-likelihood to 1e-8");
         assertRelative(ref("weibull.shape"), Math.exp(o.argmax()[0]), 1e-6, "shape");
     }
+
+    @ParameterizedTest
+    @EnumSource(Maximiser.Method.class)
+    void weibullMeanProfileInterval(Maximiser.Method method) {
+        double[] x = TestLikelihoods.readColumn(DIR + "weibull_data.csv");
+        Parameterisation p = Parameterisation.of(List.of("shape", "scale"),
+                List.of(ParameterTransform.log(), ParameterTransform.log()));
+        MaximumLikelihoodFit fit = MaximumLikelihoodFit.maximise(p, TestLikelihoods.weibull(x),
+                List.of(new double[] {1, 1}), x.length, Maximiser.of(method, 1000, 1e-10));
+        assertTrue(fit.converged(), fit.message());
+        java.util.function.ToDoubleFunction<double[]> mean =
+                t -> t[1] * Math.exp(org.apache.commons.numbers.gamma.LogGamma.value(1 + 1 / t[0]));
+        Estimate prof = fit.profile(mean, 0.95);
+        assertRelative(ref("weibull.mean"), prof.estimate(), 1e-8, "mean");
+        // constraint met to 1e-10 relative, Brent to 1e-10 relative, nuisance to relative gradient 1e-10
+        assertRelative(ref("weibull.profile95.mean.lower"), prof.lower(), 1e-7, "profile lower");
+        assertRelative(ref("weibull.profile95.mean.upper"), prof.upper(), 1e-7, "profile upper");
+        // the derived-quantity profile of a parameter itself equals the parameter profile
+        Estimate shapeByQuantity = fit.profile(t -> t[0], 0.95);
+        assertRelative(ref("weibull.profile95.shape.lower"), shapeByQuantity.lower(), 1e-7, "shape lower");
+        assertRelative(ref("weibull.profile95.shape.upper"), shapeByQuantity.upper(), 1e-7, "shape upper");
+    }
 }
