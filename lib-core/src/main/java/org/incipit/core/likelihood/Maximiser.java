@@ -119,7 +119,7 @@ public final class Maximiser {
      * @param ll     unconstrained log-likelihood
      * @param starts one or more start points
      * @return the best optimum
-     * @throws IllegalArgumentException if no start has a finite value
+     * @throws IllegalArgumentException if a start has the wrong length or no start has a finite value
      */
     public Optimum maximise(LogLikelihood ll, List<double[]> starts) {
         if (starts.isEmpty()) {
@@ -130,7 +130,11 @@ public final class Maximiser {
         int converged = 0;
         int usable = 0;
         for (double[] s : starts) {
-            if (s.length != ll.dimension() || !Double.isFinite(ll.value(s.clone()))) {
+            if (s.length != ll.dimension()) {
+                throw new IllegalArgumentException("every start must have length " + ll.dimension() + ", one has "
+                        + s.length);
+            }
+            if (!Double.isFinite(ll.value(s.clone()))) {
                 evaluations++;
                 continue;
             }
@@ -146,11 +150,12 @@ public final class Maximiser {
             }
         }
         if (best == null) {
-            throw new IllegalArgumentException("no start of " + starts.size()
-                    + " has the right length and a finite log-likelihood");
+            throw new IllegalArgumentException("no start of " + starts.size() + " has a finite log-likelihood");
         }
         return new Optimum(best.argmax(), best.value(), best.gradient(), best.iterations(), evaluations,
-                best.converged(), best.message() + "; " + converged + " of " + usable + " starts converged");
+                best.converged(), best.message() + "; " + converged + " of " + usable + " usable starts converged"
+                        + (usable < starts.size() ? " (" + (starts.size() - usable)
+                                + " starts skipped: non-finite log-likelihood)" : ""));
     }
 
     /**
