@@ -193,6 +193,17 @@ public final class MaximumLikelihoodFit {
         return InformationCriteria.bic(logLikelihood(), parameters(), observations);
     }
 
+    /**
+     * @param name label of the model
+     * @return this fit as a candidate for {@link org.incipit.core.inference.ModelComparison}
+     * @throws EstimationException if the fit did not converge (its log-likelihood is not a maximum)
+     */
+    public org.incipit.core.inference.ModelComparison.Candidate candidate(String name) {
+        requireConverged();
+        return new org.incipit.core.inference.ModelComparison.Candidate(name, logLikelihood(), parameters(),
+                observations);
+    }
+
     /** @return true if a covariance is available (information positive definite) */
     public boolean hasCovariance() {
         return covariance != null;

@@ -58,6 +58,10 @@ class ClosedFormFitTest {
         double expectedLl = -0.5 * x.length * (Math.log(2 * Math.PI * var) + 1);
         assertEquals(expectedLl, fit.logLikelihood(), 1e-12 * Math.abs(expectedLl));
         assertEquals(2 * 2 - 2 * expectedLl, fit.aic(), 1e-9);
+        org.incipit.core.inference.ModelComparison.Candidate c2 = fit.candidate("normal");
+        assertEquals(fit.logLikelihood(), c2.logLikelihood());
+        assertEquals(2, c2.parameters());
+        assertEquals(x.length, c2.observations());
     }
 
     @ParameterizedTest
