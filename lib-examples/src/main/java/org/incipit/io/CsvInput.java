@@ -88,8 +88,8 @@ public final class CsvInput {
                         + before.endText() + "' on line " + before.line());
             }
             if (before != null && before.total() != total) {
-                throw new RowFault("exposures_total", what + ": exposures_total '" + totalText
-                        + "' disagrees with '" + before.totalText() + "' on line " + before.line());
+                throw new RowFault("exposures_total", what + ": exposures_total " + shown(totalText)
+                        + " disagrees with " + shown(before.totalText()) + " on line " + before.line());
             }
             if (start > end) {
                 throw new RowFault("start", what + ": start '" + startText + "' is after end '" + endText + "'");
@@ -298,6 +298,10 @@ public final class CsvInput {
         } catch (NumberFormatException e) {
             throw new RowFault(column, "column '" + column + "': " + text + " is too large");
         }
+    }
+
+    private static String shown(String text) {
+        return text.isEmpty() ? "(empty)" : "'" + text + "'";
     }
 
     private static int optionalCount(CsvTable t, CsvTable.Row row, String column) {

@@ -2,6 +2,7 @@ package org.incipit.io;
 
 import java.math.BigDecimal;
 import java.math.MathContext;
+import java.math.RoundingMode;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
@@ -104,7 +105,9 @@ public final class TextTable {
         }
         double a = Math.abs(x);
         if (a >= 1e-4 && a < 1e7) {
-            BigDecimal d = new BigDecimal(x).round(new MathContext(4));
+            // round the shortest decimal form (what a reader sees), not the binary value:
+            // 0.00012345 is stored just below 0.00012345 but should show as 0.0001235
+            BigDecimal d = BigDecimal.valueOf(x).round(new MathContext(4, RoundingMode.HALF_UP));
             String s = d.toPlainString();
             if (s.contains(".")) {
                 s = s.replaceAll("0+$", "").replaceAll("\\.$", "");
