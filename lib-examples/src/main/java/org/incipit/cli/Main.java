@@ -53,12 +53,12 @@ public final class Main {
         cl.setCaseInsensitiveEnumValuesAllowed(true);
         cl.setParameterExceptionHandler((ex, args) -> {
             CommandLine c = ex.getCommandLine();
-            c.getErr().println("incipit: " + ex.getMessage());
-            c.getErr().println("Try '" + c.getCommandSpec().qualifiedName() + " --help' for more information.");
+            err.println("incipit: " + ex.getMessage());
+            err.println("Try '" + c.getCommandSpec().qualifiedName() + " --help' for more information.");
             return ExitCode.BAD_INPUT;
         });
         cl.setExecutionExceptionHandler((ex, c, parseResult) -> {
-            PrintWriter e = c.getErr();
+            PrintWriter e = err; // the streams given, also for subcommands added later
             if (ex instanceof InputException) {
                 e.println("incipit: " + ex.getMessage());
                 return ExitCode.BAD_INPUT;
