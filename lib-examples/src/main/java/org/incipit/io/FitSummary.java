@@ -21,7 +21,19 @@ import org.incipit.core.inference.Estimate;
 public record FitSummary(String family, Map<String, Double> parameters, Estimate mean, Estimate sd,
                          double logLikelihood, double aic, int n, boolean converged) {
 
-    /** Validates and copies the parameters, keeping their order. */
+    /**
+     * Validates and copies the parameters, keeping their order.
+     *
+     * @param family        lower-case family name, e.g. {@code "gamma"}
+     * @param parameters    natural parameters by name in the family's order, each finite
+     * @param mean          estimate of the mean delay in days
+     * @param sd            estimate of the standard deviation in days
+     * @param logLikelihood maximised log-likelihood, finite
+     * @param aic           Akaike information criterion, finite
+     * @param n             number of observations used, &ge; 1
+     * @param converged     whether the maximiser reported convergence
+     * @throws IllegalArgumentException if a component is invalid
+     */
     public FitSummary {
         if (family == null || family.isBlank()) {
             throw new IllegalArgumentException("family must be named");

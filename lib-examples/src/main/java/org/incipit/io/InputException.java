@@ -8,9 +8,13 @@ public class InputException extends RuntimeException {
 
     private static final long serialVersionUID = 1L;
 
+    /** The file as named by the user. */
     private final String file;
+    /** 1-based line, or 0. */
     private final int line;
+    /** 1-based column, or 0. */
     private final int column;
+    /** The fault without the position. */
     private final String reason;
 
     /**

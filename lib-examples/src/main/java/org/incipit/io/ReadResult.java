@@ -19,7 +19,17 @@ import java.util.Optional;
 public record ReadResult<T>(T data, String file, int dataRows, boolean dates, LocalDate origin,
                             List<SkippedRow> skipped) {
 
-    /** Copies the list of skipped rows. */
+    /**
+     * Copies the list of skipped rows.
+     *
+     * @param data     the observations
+     * @param file     the file as named by the user
+     * @param dataRows number of data rows in the file (used and skipped)
+     * @param dates    true if the file's times were dates (converted to day numbers)
+     * @param origin   the date of day 0: the given origin, else for dates the earliest date in the
+     *                 file; null for day numbers without a given origin
+     * @param skipped  rows left out (empty unless skipping was requested)
+     */
     public ReadResult {
         skipped = List.copyOf(skipped);
     }

@@ -11,7 +11,14 @@ import org.incipit.core.inference.Estimate;
  */
 public record Comparison(String label, Estimate naive, Estimate corrected) {
 
-    /** Validates. */
+    /**
+     * Validates.
+     *
+     * @param label     what is estimated, e.g. "mean serial interval"
+     * @param naive     the naive estimate
+     * @param corrected the corrected estimate
+     * @throws IllegalArgumentException if a component is invalid
+     */
     public Comparison {
         if (label == null || label.isBlank()) {
             throw new IllegalArgumentException("comparison label must not be blank");

@@ -9,7 +9,14 @@ package org.incipit.report;
  */
 public record Curve(String name, double[] x, double[] y) {
 
-    /** Validates and copies the arrays. */
+    /**
+     * Validates and copies the arrays.
+     *
+     * @param name legend text, not blank
+     * @param x    abscissae, finite, at least two; copied
+     * @param y    ordinates, same length, finite; copied
+     * @throws IllegalArgumentException if a component is invalid
+     */
     public Curve {
         if (name == null || name.isBlank()) {
             throw new IllegalArgumentException("curve name must not be blank");
@@ -24,11 +31,13 @@ public record Curve(String name, double[] x, double[] y) {
         y = y.clone();
     }
 
+    /** @return a copy of the abscissae */
     @Override
     public double[] x() {
         return x.clone();
     }
 
+    /** @return a copy of the ordinates */
     @Override
     public double[] y() {
         return y.clone();

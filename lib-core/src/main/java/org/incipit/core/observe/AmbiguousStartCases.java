@@ -298,8 +298,12 @@ public final class AmbiguousStartCases {
         /**
          * Adds one candidate start without category or total.
          *
-         * @see #addCandidate(String, double, double, String, int)
+         * @param caseId case id, not blank
+         * @param end    the case's end time in days, finite
+         * @param start  a candidate start time in days, finite, &le; {@code end}
          * @return this builder
+         * @throws ObservationException if the row is invalid
+         * @see #addCandidate(String, double, double, String, int)
          */
         public Builder addCandidate(String caseId, double end, double start) {
             return addCandidate(caseId, end, start, null, UNKNOWN_TOTAL);

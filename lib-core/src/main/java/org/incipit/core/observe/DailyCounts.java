@@ -205,8 +205,11 @@ public final class DailyCounts {
         /**
          * Adds a day with cases only (the builder must record no other series).
          *
-         * @see #add(int, int, int, int, int)
+         * @param day   the next day number
+         * @param cases new cases, &ge; 0
          * @return this builder
+         * @throws ObservationException if the row is invalid
+         * @see #add(int, int, int, int, int)
          */
         public Builder add(int day, int cases) {
             return add(day, cases, ABSENT, ABSENT, ABSENT);

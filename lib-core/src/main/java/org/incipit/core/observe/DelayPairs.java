@@ -212,10 +212,14 @@ public final class DelayPairs {
         }
 
         /**
-         * Adds an observed pair with exact times.
+         * Adds an observed pair with exact times (not day-level).
          *
-         * @see #addObserved(String, double, double, boolean)
+         * @param id        pair id, not blank, unique
+         * @param primary   primary time in days
+         * @param secondary secondary time in days, &ge; {@code primary}
          * @return this builder
+         * @throws ObservationException if the row is invalid
+         * @see #addObserved(String, double, double, boolean)
          */
         public Builder addObserved(String id, double primary, double secondary) {
             return addObserved(id, primary, secondary, false);

@@ -9,6 +9,7 @@ public class ObservationException extends IllegalArgumentException {
 
     private static final long serialVersionUID = 1L;
 
+    /** Name of the field at fault. */
     private final String field;
 
     /**
