@@ -29,12 +29,16 @@ import picocli.CommandLine.Parameters;
         description = {"Read an input file and describe what was read (no estimation).", ""},
         footer = {"",
             "File kinds (CSV with a header line; '#' starts a comment line):",
-            "  intervals   case,end,start[,kind][,exposures_total]   one row per candidate start",
-            "  delays      case,primary,secondary[,daily]            empty secondary = not yet observed",
+            "  intervals   case,end,start[,kind][,exposures_total]",
+            "              one row per candidate start",
+            "  delays      case,primary,secondary[,daily]",
+            "              empty secondary = not yet observed at the cut-off",
             "  incubation  case,exposure_from,exposure_to,onset",
-            "  counts      day,cases[,deaths][,recoveries][,imported]  consecutive days",
-            "Times are day numbers or dates (yyyy-MM-dd), one kind for all time columns of a file;",
-            "dates become day numbers counted from --origin (default: the earliest date in the file)."})
+            "  counts      day,cases[,deaths][,recoveries][,imported]",
+            "              one row per day, consecutive days",
+            "Times are day numbers or dates (yyyy-MM-dd), one kind per file;",
+            "dates become day numbers counted from --origin",
+            "(default: the earliest date in the file)."})
 public final class CheckCommand extends AbstractCommand {
 
     /** The input file kinds. */

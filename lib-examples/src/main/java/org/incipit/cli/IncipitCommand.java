@@ -15,8 +15,10 @@ import picocli.CommandLine.Spec;
             "",
             "Model-based estimates from early, sparse data inform but do not replace the judgement "
                     + "of the responsible public-health authority."},
-        footer = {"", "Exit codes: 0 success, 2 bad usage or input, 3 estimation failed, 1 internal error.",
-            "Times in input files are day numbers or dates (yyyy-MM-dd); see 'incipit help check'."},
+        footer = {"",
+            "Exit codes: 0 success, 1 internal error, 2 bad usage or input,",
+            "            3 estimation failed.",
+            "Input files: see 'incipit help check'."},
         subcommands = {CheckCommand.class, CommandLine.HelpCommand.class})
 public final class IncipitCommand implements Callable<Integer> {
 

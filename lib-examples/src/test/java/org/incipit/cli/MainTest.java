@@ -53,7 +53,11 @@ class MainTest {
         assertTrue(r.out().startsWith("Usage: incipit [-hV] [COMMAND]" + NL), r.out());
         assertTrue(r.out().contains("  check  Read an input file and describe what was read (no estimation)."));
         assertTrue(r.out().contains("Model-based estimates from early, sparse data inform but do not replace"));
-        assertTrue(r.out().contains("Exit codes: 0 success, 2 bad usage or input, 3 estimation failed, 1 internal"));
+        assertTrue(r.out().contains("Exit codes: 0 success, 1 internal error, 2 bad usage or input," + NL
+                + "            3 estimation failed." + NL));
+        for (String line : r.out().split(NL)) {
+            assertTrue(line.length() <= 80, "help fits 80 columns: " + line);
+        }
     }
 
     @Test
@@ -65,6 +69,9 @@ class MainTest {
         assertTrue(r.out().contains("--skip-bad-rows"));
         assertTrue(r.out().contains("--json"));
         assertTrue(r.out().contains("--origin=DATE"));
+        for (String line : r.out().split(NL)) {
+            assertTrue(line.length() <= 80, "help fits 80 columns: " + line);
+        }
     }
 
     @Test
