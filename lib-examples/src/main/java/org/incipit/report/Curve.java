@@ -31,6 +31,35 @@ public record Curve(String name, double[] x, double[] y) {
         y = y.clone();
     }
 
+    /**
+     * Samples a function on an even grid, e.g. a fitted density:
+     * {@code Curve.of("gamma fit", fit::density, 0, 20, 200)}.
+     *
+     * @param name   legend text
+     * @param f      the function; its values must be finite on the grid
+     * @param from   first abscissa, finite
+     * @param to     last abscissa, finite, &gt; {@code from}
+     * @param points number of grid points, &ge; 2
+     * @return the sampled curve
+     * @throws IllegalArgumentException if an argument is out of range or {@code f} is not finite
+     */
+    public static Curve of(String name, java.util.function.DoubleUnaryOperator f, double from, double to,
+                           int points) {
+        if (!(Double.isFinite(from) && Double.isFinite(to) && to > from)) {
+            throw new IllegalArgumentException("need finite from < to, was [" + from + ", " + to + "]");
+        }
+        if (points < 2) {
+            throw new IllegalArgumentException("points must be >= 2, was " + points);
+        }
+        double[] x = new double[points];
+        double[] y = new double[points];
+        for (int i = 0; i < points; i++) {
+            x[i] = i == points - 1 ? to : from + (to - from) * i / (points - 1);
+            y[i] = f.applyAsDouble(x[i]);
+        }
+        return new Curve(name, x, y);
+    }
+
     /** @return a copy of the abscissae */
     @Override
     public double[] x() {

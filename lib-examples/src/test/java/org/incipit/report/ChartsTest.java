@@ -95,6 +95,22 @@ class ChartsTest {
     }
 
     @Test
+    void curveSamplesAnEvenGridEndingExactlyAtTo() {
+        Curve c = Curve.of("square", x -> x * x, 0, 0.3, 4);
+        double[] x = c.x();
+        double[] expected = {0, 0.1, 0.2, 0.3};
+        for (int i = 0; i < 4; i++) {
+            // 0.3 * i / 3 is one rounding step from the decimal value: 2 ulp
+            assertEquals(expected[i], x[i], 2 * Math.ulp(expected[i]), "2 ulp");
+        }
+        assertEquals(0.3, x[3], 0.0, "last point is exactly 'to'");
+        assertEquals(0.3 * 0.3, c.y()[3], 0.0);
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+                () -> Curve.of("log", Math::log, 0, 1, 3));
+        assertEquals("curve 'log' y[0] must be finite, was -Infinity", e.getMessage());
+    }
+
+    @Test
     void rejectsNonFiniteData() {
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
                 () -> Charts.histogram(dir.resolve("x.png"), "t", "x", new double[] {1, Double.NaN}, 3, List.of()));
