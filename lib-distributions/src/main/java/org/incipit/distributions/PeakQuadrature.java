@@ -6,7 +6,7 @@ package org.incipit.distributions;
  *
  * <p>Algorithm (common practice): locate the mode p by safeguarded Newton on h'; take the
  * local scale t0 = 1/sqrt(-h''(p)); integrate exp(h(y) - h(p)) with 16-point Gauss-Legendre on
- * geometric panels [p + t0 2^(j-1), p + t0 2^j] on each side until h has dropped by more than
+ * geometric panels [0, 2 t0], [2 t0 2^(j-1), 2 t0 2^j] on each side of p until h has dropped by more than
  * 46 (a relative contribution below 1e-20) or the end of the interval is reached. Working
  * relative to h(p) makes the result free of overflow and underflow.
  */
@@ -81,7 +81,7 @@ final class PeakQuadrature {
         }
         double sum = 0;
         double prev = 0;
-        double t = t0;
+        double t = 2 * t0;
         for (int j = 0; j < 1100; j++) {
             double end = Math.min(t, room);
             double mid = 0.5 * (prev + end);
