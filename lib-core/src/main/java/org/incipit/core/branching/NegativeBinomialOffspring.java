@@ -1,0 +1,90 @@
+package org.incipit.core.branching;
+
+import org.apache.commons.rng.UniformRandomProvider;
+import org.apache.commons.rng.sampling.distribution.AhrensDieterMarsagliaTsangGammaSampler;
+import org.apache.commons.rng.sampling.distribution.DiscreteSampler;
+import org.apache.commons.rng.sampling.distribution.PoissonSampler;
+import org.apache.commons.rng.sampling.distribution.SharedStateContinuousSampler;
+import org.apache.commons.rng.sampling.distribution.ZigguratSampler;
+
+/**
+ * Negative binomial offspring law with mean R and dispersion k: pgf
+ * f(s) = (1 + R(1 &minus; s)/k)<sup>&minus;k</sup>, variance R + R&sup2;/k. Immutable,
+ * thread-safe. Made by {@link OffspringLaw#negativeBinomial(double, double)}.
+ */
+public final class NegativeBinomialOffspring extends OffspringLaw {
+
+    /** Poisson means above this are drawn from a rounded normal approximation (never reached in practice). */
+    private static final double MAX_POISSON_MEAN = 1e9;
+
+    private final double dispersion;
+
+    NegativeBinomialOffspring(double mean, double dispersion) {
+        super(mean, dispersion);
+        this.dispersion = dispersion;
+    }
+
+    /** @return the dispersion k &gt; 0. */
+    public double dispersion() {
+        return dispersion;
+    }
+
+    @Override
+    public String familyName() {
+        return "negative-binomial";
+    }
+
+    @Override
+    public double variance() {
+        return mean() + mean() * mean() / dispersion;
+    }
+
+    @Override
+    public DiscreteSampler sampler(UniformRandomProvider rng) {
+        if (mean() == 0) {
+            return () -> 0;
+        }
+        SharedStateContinuousSampler gamma =
+            AhrensDieterMarsagliaTsangGammaSampler.of(rng, dispersion, mean() / dispersion);
+        return () -> {
+            double lambda = gamma.sample();
+            if (!(lambda > 0)) {
+                return 0;
+            }
+            if (lambda > MAX_POISSON_MEAN) {
+                // Poisson(lambda) ~ N(lambda, lambda) to relative error 1/sqrt(lambda) < 3e-5.
+                double z = ZigguratSampler.NormalizedGaussian.of(rng).sample();
+                return (int) Math.min(Integer.MAX_VALUE, Math.round(lambda + Math.sqrt(lambda) * z));
+            }
+            return PoissonSampler.of(rng, lambda).sample();
+        };
+    }
+
+    @Override
+    double complementPgf(double u) {
+        // 1 - (1 + R u / k)^(-k) = -expm1(-k log1p(R u / k))
+        return -Math.expm1(-dispersionOf() * Math.log1p(mean() * u / dispersionOf()));
+    }
+
+    @Override
+    double directPgf(double s) {
+        return Math.exp(-dispersionOf() * Math.log1p(mean() * (1 - s) / dispersionOf()));
+    }
+
+    @Override
+    double pgfDerivativeAt(double u) {
+        double k = dispersionOf();
+        return mean() * Math.exp(-(k + 1) * Math.log1p(mean() * u / k));
+    }
+
+    @Override
+    double logDerivativeRatioAtRoot(double u, double logQ) {
+        // f'(s) = R f(s) / (1 + R(1-s)/k), and f(q) = q
+        return logQ - Math.log1p(mean() * u / dispersionOf());
+    }
+
+    @Override
+    public String toString() {
+        return "NegativeBinomialOffspring[mean=" + mean() + ", dispersion=" + dispersion + "]";
+    }
+}
