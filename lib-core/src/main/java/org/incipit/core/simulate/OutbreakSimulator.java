@@ -1,0 +1,255 @@
+package org.incipit.core.simulate;
+
+import java.util.Arrays;
+import org.apache.commons.rng.UniformRandomProvider;
+import org.apache.commons.rng.sampling.distribution.DiscreteSampler;
+import org.incipit.core.EstimationException;
+import org.incipit.distributions.DelayDistribution;
+
+/**
+ * Individual-based, continuous-time outbreak simulator (a stochastic branching process in
+ * calendar time; the "Crump&ndash;Mode&ndash;Jagers" type of Jagers 1975, <i>Branching Processes
+ * with Biological Applications</i>).
+ *
+ * <p>Every infected person draws an offspring count from the offspring law; each offspring is
+ * infected at the person's infection time plus an independent generation interval. Onset is
+ * infection plus an incubation period; the outcome is death with probability p at onset plus
+ * an onset-to-death delay, else recovery at onset plus an onset-to-recovery delay. Pending
+ * infections wait in a binary heap keyed by infection time and are processed in calendar order,
+ * so the stop rules are exact: the line list is precisely the set of people infected before
+ * the stop day, or the first maxCases infected. Memory is linear in the number of infections
+ * processed (flat primitive arrays grown by doubling; no per-person objects).
+ *
+ * <p>With conditioning on survival, outbreaks that die out before a stop rule is met are drawn
+ * again from the same generator (rejection; exact conditioning on "not extinct at the stop").
+ * When the stop is a large case count this approximates conditioning on eventual survival
+ * (the chance of later extinction is q raised to the number of pending infections).
+ *
+ * <p>Usage:
+ * <pre>{@code
+ * OutbreakOptions opts = OutbreakOptions.builder(OffspringLaw.negativeBinomial(2.0, 0.5),
+ *         GammaDelay.ofShapeRate(4, 0.8), LogNormalDelay.of(1.6, 0.4))
+ *     .outcomes(0.02, GammaDelay.ofShapeRate(3, 0.2), GammaDelay.ofShapeRate(5, 0.3))
+ *     .maxCases(2000).conditionOnSurvival(100)
+ *     .exposures(ExposureModel.open(0.2, 1.5))
+ *     .build();
+ * SimulatedOutbreak o = OutbreakSimulator.simulate(RandomSource.XO_RO_SHI_RO_128_PP.create(7L), opts);
+ * }</pre>
+ */
+public final class OutbreakSimulator {
+
+    private OutbreakSimulator() {
+    }
+
+    /**
+     * Simulates one outbreak.
+     *
+     * @param rng     source of randomness (not stored); same seed, same outbreak
+     * @param options configuration
+     * @return the outbreak
+     * @throws IllegalArgumentException if an argument is null
+     * @throws EstimationException if conditioning on survival found no surviving outbreak in
+     *         {@link OutbreakOptions#maxAttempts()} draws
+     */
+    public static SimulatedOutbreak simulate(UniformRandomProvider rng, OutbreakOptions options) {
+        if (rng == null || options == null) {
+            throw new IllegalArgumentException("rng and options must not be null");
+        }
+        DiscreteSampler offspring = options.offspring().sampler(rng);
+        int attempts = 0;
+        while (true) {
+            attempts++;
+            Run run = new Run(rng, options, offspring);
+            run.execute();
+            if (!options.conditionOnSurvival() || run.reason != StopReason.EXTINCT) {
+                return run.result(attempts);
+            }
+            if (attempts >= options.maxAttempts()) {
+                throw new EstimationException("no outbreak survived to a stop rule in " + attempts
+                    + " attempts (offspring " + options.offspring() + ", extinction probability "
+                    + options.offspring().extinctionProbability() + ")");
+            }
+        }
+    }
+
+    /** One draw; mutable, confined to the simulating thread. */
+    private static final class Run {
+        private final UniformRandomProvider rng;
+        private final OutbreakOptions o;
+        private final DiscreteSampler offspringSampler;
+        private final DelayDistribution gi;
+        private final DelayDistribution incubation;
+        private final DelayDistribution toDeath;
+        private final DelayDistribution toRecovery;
+        private final double p;
+        private final ExposureGenerator exposures;
+
+        // heap of pending infections
+        private double[] hTime = new double[64];
+        private int[] hInfector = new int[64];
+        private int[] hGen = new int[64];
+        private int hSize;
+
+        // line list
+        private int n;
+        private int[] infector = new int[64];
+        private double[] infection = new double[64];
+        private double[] onset = new double[64];
+        private byte[] outcome;
+        private double[] outcomeTime;
+        private int[] generation = new int[64];
+        private int[] offspring = new int[64];
+
+        private StopReason reason;
+        private double end;
+
+        Run(UniformRandomProvider rng, OutbreakOptions o, DiscreteSampler offspringSampler) {
+            this.rng = rng;
+            this.o = o;
+            this.offspringSampler = offspringSampler;
+            this.gi = o.generationInterval();
+            this.incubation = o.incubationPeriod();
+            this.toDeath = o.onsetToDeath();
+            this.toRecovery = o.onsetToRecovery();
+            this.p = o.fatalityProbability();
+            this.exposures = o.exposures() == null ? null : new ExposureGenerator(o.exposures());
+            if (o.simulatesOutcomes()) {
+                outcome = new byte[64];
+                outcomeTime = new double[64];
+            }
+        }
+
+        void execute() {
+            for (int i = 0; i < o.indexCases(); i++) {
+                push(0, -1, 0);
+            }
+            double stopDay = o.stopDay();
+            int maxCases = o.maxCases();
+            while (true) {
+                if (hSize == 0) {
+                    reason = StopReason.EXTINCT;
+                    end = stopDay;
+                    return;
+                }
+                double t = hTime[0];
+                if (t >= stopDay) {
+                    reason = StopReason.DAY_LIMIT;
+                    end = stopDay;
+                    return;
+                }
+                int from = hInfector[0];
+                int gen = hGen[0];
+                pop();
+                record(t, from, gen);
+                if (n == maxCases) {
+                    reason = StopReason.CASE_LIMIT;
+                    end = t;
+                    return;
+                }
+            }
+        }
+
+        private void record(double t, int from, int gen) {
+            if (n == infection.length) {
+                grow();
+            }
+            int i = n++;
+            infector[i] = from;
+            infection[i] = t;
+            generation[i] = gen;
+            double s = t + incubation.sample(rng);
+            onset[i] = s;
+            if (outcome != null) {
+                if (rng.nextDouble() < p) {
+                    outcome[i] = SimulatedOutbreak.DEATH;
+                    outcomeTime[i] = s + toDeath.sample(rng);
+                } else {
+                    outcome[i] = SimulatedOutbreak.RECOVERY;
+                    outcomeTime[i] = s + toRecovery.sample(rng);
+                }
+            }
+            if (exposures != null) {
+                exposures.addCase(rng, t, s);
+            }
+            int z = offspringSampler.sample();
+            offspring[i] = z;
+            for (int c = 0; c < z; c++) {
+                push(t + gi.sample(rng), i, gen + 1);
+            }
+        }
+
+        private void grow() {
+            int cap = 2 * infection.length;
+            infector = Arrays.copyOf(infector, cap);
+            infection = Arrays.copyOf(infection, cap);
+            onset = Arrays.copyOf(onset, cap);
+            generation = Arrays.copyOf(generation, cap);
+            offspring = Arrays.copyOf(offspring, cap);
+            if (outcome != null) {
+                outcome = Arrays.copyOf(outcome, cap);
+                outcomeTime = Arrays.copyOf(outcomeTime, cap);
+            }
+        }
+
+        private void push(double t, int from, int gen) {
+            if (hSize == hTime.length) {
+                int cap = 2 * hSize;
+                hTime = Arrays.copyOf(hTime, cap);
+                hInfector = Arrays.copyOf(hInfector, cap);
+                hGen = Arrays.copyOf(hGen, cap);
+            }
+            int i = hSize++;
+            while (i > 0) {
+                int parent = (i - 1) >>> 1;
+                if (hTime[parent] <= t) {
+                    break;
+                }
+                hTime[i] = hTime[parent];
+                hInfector[i] = hInfector[parent];
+                hGen[i] = hGen[parent];
+                i = parent;
+            }
+            hTime[i] = t;
+            hInfector[i] = from;
+            hGen[i] = gen;
+        }
+
+        private void pop() {
+            int last = --hSize;
+            if (last == 0) {
+                return;
+            }
+            double t = hTime[last];
+            int from = hInfector[last];
+            int gen = hGen[last];
+            int i = 0;
+            int half = last >>> 1;
+            while (i < half) {
+                int child = 2 * i + 1;
+                int right = child + 1;
+                if (right < last && hTime[right] < hTime[child]) {
+                    child = right;
+                }
+                if (t <= hTime[child]) {
+                    break;
+                }
+                hTime[i] = hTime[child];
+                hInfector[i] = hInfector[child];
+                hGen[i] = hGen[child];
+                i = child;
+            }
+            hTime[i] = t;
+            hInfector[i] = from;
+            hGen[i] = gen;
+        }
+
+        SimulatedOutbreak result(int attempts) {
+            double observationEnd = end;
+            return new SimulatedOutbreak(o, n, Arrays.copyOf(infector, n), Arrays.copyOf(infection, n),
+                Arrays.copyOf(onset, n), outcome == null ? null : Arrays.copyOf(outcome, n),
+                outcomeTime == null ? null : Arrays.copyOf(outcomeTime, n), Arrays.copyOf(generation, n),
+                Arrays.copyOf(offspring, n), observationEnd, reason, attempts,
+                exposures == null ? null : exposures.build());
+        }
+    }
+}
