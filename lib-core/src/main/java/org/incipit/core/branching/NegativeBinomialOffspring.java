@@ -17,6 +17,9 @@ public final class NegativeBinomialOffspring extends OffspringLaw {
     /** Poisson means above this are drawn from a rounded normal approximation (never reached in practice). */
     private static final double MAX_POISSON_MEAN = 1e9;
 
+    /** Laws with mean below this are sampled by inversion, above by the gamma-Poisson mixture. */
+    private static final double INVERSION_MAX_MEAN = 50;
+
     private final double dispersion;
 
     NegativeBinomialOffspring(double mean, double dispersion) {
@@ -46,7 +49,7 @@ public final class NegativeBinomialOffspring extends OffspringLaw {
         }
         SharedStateContinuousSampler gamma =
             AhrensDieterMarsagliaTsangGammaSampler.of(rng, dispersion, mean() / dispersion);
-        return () -> {
+        DiscreteSampler mixture = () -> {
             double lambda = gamma.sample();
             if (!(lambda > 0)) {
                 return 0;
@@ -57,6 +60,32 @@ public final class NegativeBinomialOffspring extends OffspringLaw {
                 return (int) Math.min(Integer.MAX_VALUE, Math.round(lambda + Math.sqrt(lambda) * z));
             }
             return PoissonSampler.of(rng, lambda).sample();
+        };
+        if (mean() >= INVERSION_MAX_MEAN) {
+            return mixture;
+        }
+        // Inversion by sequential search (Devroye 1986, Non-Uniform Random Variate Generation,
+        // sec. III.2 and X.4): P(0) = (k/(k+R))^k, P(n+1) = P(n) (n+k)/(n+1) R/(k+R).
+        // Expected work R + 1 steps; one uniform per draw. If the summed masses stall below u
+        // (u within rounding of 1), the gamma-Poisson mixture draws instead.
+        double p0 = Math.exp(-dispersion * Math.log1p(mean() / dispersion));
+        double ratio = mean() / (dispersion + mean());
+        double k = dispersion;
+        return () -> {
+            double u = rng.nextDouble();
+            double p = p0;
+            double cdf = p0;
+            int n = 0;
+            while (u > cdf) {
+                p *= (n + k) / (n + 1) * ratio;
+                n++;
+                double next = cdf + p;
+                if (next == cdf) {
+                    return mixture.sample();
+                }
+                cdf = next;
+            }
+            return n;
         };
     }
 

@@ -116,8 +116,10 @@ public abstract sealed class OffspringLaw permits PoissonOffspring, NegativeBino
 
     /**
      * A sampler of offspring counts drawing from {@code rng}. The sampler holds {@code rng} and
-     * is for one thread; the law itself stores no randomness. Negative binomial counts are drawn
-     * as a gamma&ndash;Poisson mixture (Poisson with a Gamma(k, R/k) mean).
+     * is for one thread; the law itself stores no randomness. Poisson counts come from
+     * commons-rng's {@code PoissonSampler}. Negative binomial counts are drawn by inversion
+     * (sequential search on the mass recurrence) when R &lt; 50, else as a gamma&ndash;Poisson
+     * mixture (Poisson with a Gamma(k, R/k) mean); both are exact.
      *
      * @param rng source of randomness, used by the returned sampler
      * @return sampler of non-negative offspring counts

@@ -25,8 +25,8 @@ import java.util.Arrays;
  * expected number is 1/p&#772; + &lambda; E[X]. Given the first candidate, the candidate times
  * have density &lambda;<sup>n&minus;1</sup> e<sup>&minus;&lambda;(onset &minus; e<sub>1</sub>)</sup>
  * whichever candidate infected, so the likelihood in the infecting index is
- * &Sigma;<sub>j</sub> &prod;<sub>l&lt;j</sub>(1 &minus; p<sub>c<sub>l</sub></sub>)
- * p<sub>c<sub>j</sub></sub> h(onset &minus; e<sub>j</sub>), with no normaliser.</li>
+ * &Sigma;<sub>j</sub> &prod;<sub>l&lt;j</sub>(1 &minus; p(c<sub>l</sub>))
+ * p(c<sub>j</sub>) h(onset &minus; e<sub>j</sub>), with no normaliser.</li>
  * <li>{@link ExposureRecording#COMPLETE} and {@link ExposureRecording#KNOWN_TOTAL}: a history of
  * M exposures (M = m fixed, or Poisson(&mu;) for KNOWN_TOTAL) at window-start + w U<sub>(i)</sub>,
  * U<sub>(1)</sub> &le; &hellip; &le; U<sub>(M)</sub> sorted uniforms on [0, 1) and w the window
@@ -38,7 +38,7 @@ import java.util.Arrays;
  * t + X with no selection on X, the likelihood is exactly
  * &Sigma;<sub>j</sub> p(1 &minus; p)<sup>j&minus;1</sup> h(onset &minus; e<sub>j</sub>) /
  * (1 &minus; (1 &minus; p)<sup>M</sup>) (with categories, the product form over
- * 1 &minus; &prod;<sub>i</sub>(1 &minus; p<sub>c<sub>i</sub></sub>)).
+ * 1 &minus; &prod;<sub>i</sub>(1 &minus; p(c<sub>i</sub>))).
  * COMPLETE records all M exposures. All of them precede onset whenever the incubation period
  * exceeds the window width w; forcing that for every case (rejecting cases whose onset falls
  * inside the window) would select on X and bias the likelihood, so it is not done: an exposure

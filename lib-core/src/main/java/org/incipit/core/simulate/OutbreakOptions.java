@@ -36,6 +36,18 @@ public record OutbreakOptions(OffspringLaw offspring, DelayDistribution generati
     /**
      * Validates.
      *
+     * @param offspring           law of the number of people each case infects
+     * @param generationInterval  generation-interval distribution
+     * @param incubationPeriod    incubation-period distribution
+     * @param fatalityProbability p in [0, 1] (0 when outcomes are not simulated)
+     * @param onsetToDeath        onset-to-death delay, or null (with onsetToRecovery) for no outcomes
+     * @param onsetToRecovery     onset-to-recovery delay, or null
+     * @param indexCases          &ge; 1
+     * @param maxCases            &ge; 1
+     * @param stopDay             &gt; 0, may be +&infin;
+     * @param conditionOnSurvival whether to redraw outbreaks that die out
+     * @param maxAttempts         &ge; 1
+     * @param exposures           exposure recording, or null
      * @throws IllegalArgumentException if a value is out of range or a required one is null
      */
     public OutbreakOptions {
@@ -122,19 +134,28 @@ public record OutbreakOptions(OffspringLaw offspring, DelayDistribution generati
             return this;
         }
 
-        /** @param n index cases infected at time 0, &ge; 1 @return this builder */
+        /**
+         * @param n index cases infected at time 0, &ge; 1
+         * @return this builder
+         */
         public Builder indexCases(int n) {
             this.indexCases = n;
             return this;
         }
 
-        /** @param n stop at the n-th infection, &ge; 1 @return this builder */
+        /**
+         * @param n stop at the n-th infection, &ge; 1
+         * @return this builder
+         */
         public Builder maxCases(int n) {
             this.maxCases = n;
             return this;
         }
 
-        /** @param day stop at this calendar day, &gt; 0 @return this builder */
+        /**
+         * @param day stop at this calendar day, &gt; 0
+         * @return this builder
+         */
         public Builder stopDay(double day) {
             this.stopDay = day;
             return this;
@@ -153,7 +174,10 @@ public record OutbreakOptions(OffspringLaw offspring, DelayDistribution generati
             return this;
         }
 
-        /** @param model candidate-exposure recording (null for none) @return this builder */
+        /**
+         * @param model candidate-exposure recording (null for none)
+         * @return this builder
+         */
         public Builder exposures(ExposureModel model) {
             this.exposures = model;
             return this;

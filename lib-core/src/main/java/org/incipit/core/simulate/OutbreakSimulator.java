@@ -84,10 +84,11 @@ public final class OutbreakSimulator {
         private final double p;
         private final ExposureGenerator exposures;
 
-        // heap of pending infections
-        private double[] hTime = new double[64];
-        private int[] hInfector = new int[64];
-        private int[] hGen = new int[64];
+        // 4-ary min-heap of pending infections, entries interleaved as (time bits, infector):
+        // the four children of a node are contiguous (one or two cache lines). Times are
+        // non-negative, so their raw IEEE bits order like the times. The infectee's generation
+        // is the infector's plus one, so it is not stored.
+        private long[] heap = new long[128];
         private int hSize;
 
         // line list
@@ -121,7 +122,7 @@ public final class OutbreakSimulator {
 
         void execute() {
             for (int i = 0; i < o.indexCases(); i++) {
-                push(0, -1, 0);
+                push(0, -1);
             }
             double stopDay = o.stopDay();
             int maxCases = o.maxCases();
@@ -131,16 +132,15 @@ public final class OutbreakSimulator {
                     end = stopDay;
                     return;
                 }
-                double t = hTime[0];
+                double t = Double.longBitsToDouble(heap[0]);
                 if (t >= stopDay) {
                     reason = StopReason.DAY_LIMIT;
                     end = stopDay;
                     return;
                 }
-                int from = hInfector[0];
-                int gen = hGen[0];
+                int from = (int) heap[1];
                 pop();
-                record(t, from, gen);
+                record(t, from, from < 0 ? 0 : generation[from] + 1);
                 if (n == maxCases) {
                     reason = StopReason.CASE_LIMIT;
                     end = t;
@@ -174,7 +174,12 @@ public final class OutbreakSimulator {
             int z = offspringSampler.sample();
             offspring[i] = z;
             for (int c = 0; c < z; c++) {
-                push(t + gi.sample(rng), i, gen + 1);
+                double child = t + gi.sample(rng);
+                if (!(child >= t)) {
+                    throw new IllegalArgumentException("generationInterval sampled " + (child - t)
+                        + ", must be >= 0 (" + gi.familyName() + ")");
+                }
+                push(child, i);
             }
         }
 
@@ -191,27 +196,24 @@ public final class OutbreakSimulator {
             }
         }
 
-        private void push(double t, int from, int gen) {
-            if (hSize == hTime.length) {
-                int cap = 2 * hSize;
-                hTime = Arrays.copyOf(hTime, cap);
-                hInfector = Arrays.copyOf(hInfector, cap);
-                hGen = Arrays.copyOf(hGen, cap);
+        private void push(double t, int from) {
+            if (2 * hSize + 2 > heap.length) {
+                heap = Arrays.copyOf(heap, 2 * heap.length);
             }
+            long key = Double.doubleToRawLongBits(t);
             int i = hSize++;
             while (i > 0) {
-                int parent = (i - 1) >>> 1;
-                if (hTime[parent] <= t) {
+                int parent = (i - 1) >>> 2;
+                long pk = heap[2 * parent];
+                if (pk <= key) {
                     break;
                 }
-                hTime[i] = hTime[parent];
-                hInfector[i] = hInfector[parent];
-                hGen[i] = hGen[parent];
+                heap[2 * i] = pk;
+                heap[2 * i + 1] = heap[2 * parent + 1];
                 i = parent;
             }
-            hTime[i] = t;
-            hInfector[i] = from;
-            hGen[i] = gen;
+            heap[2 * i] = key;
+            heap[2 * i + 1] = from;
         }
 
         private void pop() {
@@ -219,28 +221,33 @@ public final class OutbreakSimulator {
             if (last == 0) {
                 return;
             }
-            double t = hTime[last];
-            int from = hInfector[last];
-            int gen = hGen[last];
+            long key = heap[2 * last];
+            long from = heap[2 * last + 1];
             int i = 0;
-            int half = last >>> 1;
-            while (i < half) {
-                int child = 2 * i + 1;
-                int right = child + 1;
-                if (right < last && hTime[right] < hTime[child]) {
-                    child = right;
-                }
-                if (t <= hTime[child]) {
+            while (true) {
+                int first = 4 * i + 1;
+                if (first >= last) {
                     break;
                 }
-                hTime[i] = hTime[child];
-                hInfector[i] = hInfector[child];
-                hGen[i] = hGen[child];
-                i = child;
+                int best = first;
+                long bk = heap[2 * first];
+                int stop = Math.min(first + 4, last);
+                for (int c = first + 1; c < stop; c++) {
+                    long ck = heap[2 * c];
+                    if (ck < bk) {
+                        bk = ck;
+                        best = c;
+                    }
+                }
+                if (key <= bk) {
+                    break;
+                }
+                heap[2 * i] = bk;
+                heap[2 * i + 1] = heap[2 * best + 1];
+                i = best;
             }
-            hTime[i] = t;
-            hInfector[i] = from;
-            hGen[i] = gen;
+            heap[2 * i] = key;
+            heap[2 * i + 1] = from;
         }
 
         SimulatedOutbreak result(int attempts) {

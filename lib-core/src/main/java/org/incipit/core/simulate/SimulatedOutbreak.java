@@ -129,22 +129,34 @@ public final class SimulatedOutbreak {
         return outcome != null;
     }
 
-    /** @param i id @return infector id, &minus;1 for an index case */
+    /**
+     * @param i id
+     * @return infector id, &minus;1 for an index case
+     */
     public int infectorId(int i) {
         return infector[check(i)];
     }
 
-    /** @param i id @return infection time, days */
+    /**
+     * @param i id
+     * @return infection time, days
+     */
     public double infectionTime(int i) {
         return infection[check(i)];
     }
 
-    /** @param i id @return symptom onset time, days */
+    /**
+     * @param i id
+     * @return symptom onset time, days
+     */
     public double onsetTime(int i) {
         return onset[check(i)];
     }
 
-    /** @param i id @return generation (0 for index cases) */
+    /**
+     * @param i id
+     * @return generation (0 for index cases)
+     */
     public int generation(int i) {
         return generation[check(i)];
     }
@@ -202,12 +214,18 @@ public final class SimulatedOutbreak {
         return offspring.clone();
     }
 
-    /** @return outcome codes (copy) @throws IllegalStateException if outcomes were not simulated */
+    /**
+     * @return outcome codes (copy)
+     * @throws IllegalStateException if outcomes were not simulated
+     */
     public byte[] outcomes() {
         return outcomes0().clone();
     }
 
-    /** @return outcome times (copy) @throws IllegalStateException if outcomes were not simulated */
+    /**
+     * @return outcome times (copy)
+     * @throws IllegalStateException if outcomes were not simulated
+     */
     public double[] outcomeTimes() {
         outcomes0();
         return outcomeTime.clone();

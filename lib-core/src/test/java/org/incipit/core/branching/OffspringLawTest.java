@@ -146,7 +146,9 @@ class OffspringLawTest {
     void samplerMomentsMatch() {
         UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(SEED);
         for (OffspringLaw law : new OffspringLaw[] {OffspringLaw.poisson(2.5),
-                OffspringLaw.negativeBinomial(2.5, 0.3), OffspringLaw.negativeBinomial(1.2, 0.02)}) {
+                OffspringLaw.negativeBinomial(2.5, 0.3), OffspringLaw.negativeBinomial(1.2, 0.02),
+                OffspringLaw.negativeBinomial(80, 2), OffspringLaw.negativeBinomial(60, 0.05)}) {
+            // R >= 50: gamma-Poisson mixture path; R < 50: inversion path
             DiscreteSampler s = law.sampler(rng);
             int n = 400_000;
             double sum = 0;
