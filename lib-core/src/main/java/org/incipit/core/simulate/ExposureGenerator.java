@@ -89,7 +89,7 @@ final class ExposureGenerator {
         return c;
     }
 
-    private static double exp(UniformRandomProvider rng) {
+    private static double standardExponential(UniformRandomProvider rng) {
         return -Math.log1p(-rng.nextDouble()); // Exp(1); 1 - U in (0, 1]
     }
 
@@ -123,7 +123,7 @@ final class ExposureGenerator {
         // backwards from t, written in ascending order
         double s = t;
         for (int i = failures - 1; i >= 0; i--) {
-            s -= exp(rng) / rate;
+            s -= standardExponential(rng) / rate;
             times[n + i] = s;
             categories[n + i] = pick(cumFailed, rng);
         }
@@ -134,13 +134,13 @@ final class ExposureGenerator {
         n++;
         totals[cases] = -1;
         // after infection: Poisson process of rate lambda on (t, onset)
-        double e = t + exp(rng) / rate;
+        double e = t + standardExponential(rng) / rate;
         while (e < onset) {
             ensureExposures(1);
             times[n] = e;
             categories[n] = pick(cumAll, rng);
             n++;
-            e += exp(rng) / rate;
+            e += standardExponential(rng) / rate;
         }
     }
 
@@ -185,10 +185,10 @@ final class ExposureGenerator {
         }
         double sum = 0;
         for (int i = 0; i < total; i++) {
-            sum += exp(rng);
+            sum += standardExponential(rng);
             scratchU[i] = sum;
         }
-        sum += exp(rng);
+        sum += standardExponential(rng);
         double w = model.windowDays();
         double uj = scratchU[j] / sum;
         boolean all = model.recording() == ExposureRecording.COMPLETE;
