@@ -18,7 +18,8 @@ import org.junit.jupiter.api.Test;
 /**
  * Statistical checks use "within 4 standard errors": two-sided false-alarm probability
  * 6.3e-5 per check under a normal sampling distribution (common practice); with about 25
- * such checks in this class the chance of any false alarm is below 0.2%.
+ * such checks in this class the chance of any false alarm is below 0.2%; plus four chi-square
+ * checks at alpha = 0.001 (0.4%).
  */
 class OutbreakSimulatorTest {
 
@@ -40,6 +41,31 @@ class OutbreakSimulatorTest {
         double mean = Arrays.stream(x).average().orElseThrow();
         double var = Arrays.stream(x).map(v -> (v - mean) * (v - mean)).sum() / (x.length - 1);
         assertEquals(expected, mean, 4 * Math.sqrt(var / x.length), what);
+    }
+
+    // scipy 1.17.1: chi2.ppf(0.999, 9) = 27.877164871256568 (alpha = 0.001, 10 bins)
+    private static final double CHI2_9DF_999 = 27.877164871256568;
+
+    /** Chi-square on 10 equal-probability bins of d (STYLE.md sampler check), alpha = 0.001. */
+    private static void assertChiSquare(DelayDistribution d, double[] x, String what) {
+        double[] edges = new double[9];
+        for (int b = 1; b <= 9; b++) {
+            edges[b - 1] = d.quantile(b / 10.0);
+        }
+        long[] counts = new long[10];
+        for (double v : x) {
+            int b = 0;
+            while (b < 9 && v > edges[b]) {
+                b++;
+            }
+            counts[b]++;
+        }
+        double expected = x.length / 10.0;
+        double chi2 = 0;
+        for (long c : counts) {
+            chi2 += (c - expected) * (c - expected) / expected;
+        }
+        assertTrue(chi2 < CHI2_9DF_999, what + ": chi-square " + chi2 + " counts " + Arrays.toString(counts));
     }
 
     private static OutbreakOptions.Builder standard() {
@@ -115,6 +141,10 @@ class OutbreakSimulatorTest {
         assertWithin4Se(10.0, Arrays.copyOf(rd, nr), "onset to recovery mean (uniform 5..15)");
         // exponential: variance = mean^2, checked through E[X^2] = 50 within 4 SE of X^2
         assertWithin4Se(50.0, Arrays.stream(gis).map(v -> v * v).toArray(), "generation interval E[X^2]");
+        assertChiSquare(gi(), gis, "generation interval");
+        assertChiSquare(incubation(), inc, "incubation period");
+        assertChiSquare(toDeath, Arrays.copyOf(dd, nd), "onset to death");
+        assertChiSquare(toRecovery, Arrays.copyOf(rd, nr), "onset to recovery");
         // fatality fraction: binomial proportion within 4 SE
         assertEquals(0.1, (double) deaths / n, 4 * Math.sqrt(0.1 * 0.9 / n), "fatality fraction");
         assertEquals(Double.POSITIVE_INFINITY, o.observationEnd());
