@@ -232,9 +232,15 @@ final class ExposureGenerator {
     }
 
     ExposureRecords build() {
-        return new ExposureRecords(model, cases, Arrays.copyOf(offsets, cases + 1),
-            Arrays.copyOf(times, n), Arrays.copyOf(categories, n), Arrays.copyOf(totals, cases),
-            Arrays.copyOf(infecting, cases), Arrays.copyOf(infectionTimes, cases),
-            Arrays.copyOf(onsets, cases));
+        return build(cases);
+    }
+
+    /** @param keep number of leading cases to keep, &le; cases */
+    ExposureRecords build(int keep) {
+        int m = offsets[keep];
+        return new ExposureRecords(model, keep, Arrays.copyOf(offsets, keep + 1),
+            Arrays.copyOf(times, m), Arrays.copyOf(categories, m), Arrays.copyOf(totals, keep),
+            Arrays.copyOf(infecting, keep), Arrays.copyOf(infectionTimes, keep),
+            Arrays.copyOf(onsets, keep));
     }
 }

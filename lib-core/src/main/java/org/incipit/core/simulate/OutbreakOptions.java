@@ -16,6 +16,8 @@ import org.incipit.distributions.DelayDistribution;
  * @param onsetToRecovery     onset to recovery, days; null if outcomes are not simulated
  * @param indexCases          number of cases infected at time 0, &ge; 1
  * @param maxCases            stop at the infection of the maxCases-th person, &ge; 1
+ * @param maxOnsets           stop at the maxOnsets-th symptom onset, &ge; 1
+ *                            ({@code Integer.MAX_VALUE}: no onset rule)
  * @param stopDay             stop at this calendar day (infections at times &ge; stopDay are
  *                            not simulated), &gt; 0, may be +&infin;
  * @param conditionOnSurvival redraw outbreaks that die out before a stop rule is reached
@@ -25,7 +27,7 @@ import org.incipit.distributions.DelayDistribution;
 public record OutbreakOptions(OffspringLaw offspring, DelayDistribution generationInterval,
                               DelayDistribution incubationPeriod, double fatalityProbability,
                               DelayDistribution onsetToDeath, DelayDistribution onsetToRecovery,
-                              int indexCases, int maxCases, double stopDay,
+                              int indexCases, int maxCases, int maxOnsets, double stopDay,
                               boolean conditionOnSurvival, int maxAttempts, ExposureModel exposures) {
 
     /** Default {@link #maxCases()}. */
@@ -44,6 +46,7 @@ public record OutbreakOptions(OffspringLaw offspring, DelayDistribution generati
      * @param onsetToRecovery     onset-to-recovery delay, or null
      * @param indexCases          &ge; 1
      * @param maxCases            &ge; 1
+     * @param maxOnsets           &ge; 1, {@code Integer.MAX_VALUE} for none
      * @param stopDay             &gt; 0, may be +&infin;
      * @param conditionOnSurvival whether to redraw outbreaks that die out
      * @param maxAttempts         &ge; 1
@@ -69,6 +72,9 @@ public record OutbreakOptions(OffspringLaw offspring, DelayDistribution generati
         }
         if (maxCases < 1) {
             throw new IllegalArgumentException("maxCases must be >= 1, was " + maxCases);
+        }
+        if (maxOnsets < 1) {
+            throw new IllegalArgumentException("maxOnsets must be >= 1, was " + maxOnsets);
         }
         if (!(stopDay > 0)) {
             throw new IllegalArgumentException("stopDay must be > 0 (or +infinity), was " + stopDay);
@@ -107,6 +113,7 @@ public record OutbreakOptions(OffspringLaw offspring, DelayDistribution generati
         private DelayDistribution onsetToRecovery;
         private int indexCases = 1;
         private int maxCases = DEFAULT_MAX_CASES;
+        private int maxOnsets = Integer.MAX_VALUE;
         private double stopDay = Double.POSITIVE_INFINITY;
         private boolean conditionOnSurvival;
         private int maxAttempts = DEFAULT_MAX_ATTEMPTS;
@@ -153,6 +160,18 @@ public record OutbreakOptions(OffspringLaw offspring, DelayDistribution generati
         }
 
         /**
+         * Stops at the n-th symptom onset in calendar time; the observation end is then that
+         * onset's time. The case limit still applies (raise it if it should not bind).
+         *
+         * @param n stop at the n-th onset, &ge; 1
+         * @return this builder
+         */
+        public Builder maxOnsets(int n) {
+            this.maxOnsets = n;
+            return this;
+        }
+
+        /**
          * @param day stop at this calendar day, &gt; 0
          * @return this builder
          */
@@ -189,7 +208,7 @@ public record OutbreakOptions(OffspringLaw offspring, DelayDistribution generati
          */
         public OutbreakOptions build() {
             return new OutbreakOptions(offspring, generationInterval, incubationPeriod, fatalityProbability,
-                onsetToDeath, onsetToRecovery, indexCases, maxCases, stopDay, conditionOnSurvival,
+                onsetToDeath, onsetToRecovery, indexCases, maxCases, maxOnsets, stopDay, conditionOnSurvival,
                 maxAttempts, exposures);
         }
     }

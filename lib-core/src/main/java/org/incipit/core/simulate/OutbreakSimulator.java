@@ -15,9 +15,12 @@ import org.incipit.distributions.DelayDistribution;
  * infected at the person's infection time plus an independent generation interval. Onset is
  * infection plus an incubation period; the outcome is death with probability p at onset plus
  * an onset-to-death delay, else recovery at onset plus an onset-to-recovery delay. Pending
- * infections wait in a binary heap keyed by infection time and are processed in calendar order,
+ * infections wait in a 4-ary heap keyed by infection time and are processed in calendar order,
  * so the stop rules are exact: the line list is precisely the set of people infected before
- * the stop day, or the first maxCases infected. Memory is linear in the number of infections
+ * the stop day, or the first maxCases infected, or everyone infected up to the maxOnsets-th
+ * symptom onset (that onset is found exactly: once the next pending infection is no earlier
+ * than the largest of the maxOnsets smallest onsets seen, no later infection can have an
+ * earlier onset). The first rule met ends the outbreak. Memory is linear in the number of infections
  * processed (flat primitive arrays grown by doubling; no per-person objects).
  *
  * <p>With conditioning on survival, outbreaks that die out before a stop rule is met are drawn
@@ -101,6 +104,10 @@ public final class OutbreakSimulator {
         private int[] generation = new int[64];
         private int[] offspring = new int[64];
 
+        // max-heap of the smallest onsets (onset stop rule only)
+        private double[] oHeap = new double[64];
+        private int oSize;
+
         private StopReason reason;
         private double end;
 
@@ -126,13 +133,23 @@ public final class OutbreakSimulator {
             }
             double stopDay = o.stopDay();
             int maxCases = o.maxCases();
+            int maxOnsets = o.maxOnsets();
             while (true) {
+                double t = hSize == 0 ? Double.POSITIVE_INFINITY : Double.longBitsToDouble(heap[0]);
+                // Onset rule: once maxOnsets onsets are known and the next infection is no
+                // earlier than the largest of the maxOnsets smallest onsets, no later infection
+                // can change that value (onset >= infection): it is the maxOnsets-th onset.
+                if (oSize == maxOnsets && t >= oHeap[0] && oHeap[0] <= stopDay) {
+                    reason = StopReason.ONSET_LIMIT;
+                    end = oHeap[0];
+                    trimAfter(end);
+                    return;
+                }
                 if (hSize == 0) {
                     reason = StopReason.EXTINCT;
                     end = stopDay;
                     return;
                 }
-                double t = Double.longBitsToDouble(heap[0]);
                 if (t >= stopDay) {
                     reason = StopReason.DAY_LIMIT;
                     end = stopDay;
@@ -141,12 +158,63 @@ public final class OutbreakSimulator {
                 int from = (int) heap[1];
                 pop();
                 record(t, from, from < 0 ? 0 : generation[from] + 1);
+                if (maxOnsets != Integer.MAX_VALUE) {
+                    offerOnset(onset[n - 1], maxOnsets);
+                }
                 if (n == maxCases) {
                     reason = StopReason.CASE_LIMIT;
                     end = t;
                     return;
                 }
             }
+        }
+
+        /** Keeps the maxOnsets smallest onsets in a max-heap (root = largest kept). */
+        private void offerOnset(double s, int cap) {
+            if (oSize < cap) {
+                if (oSize == oHeap.length) {
+                    oHeap = Arrays.copyOf(oHeap, 2 * oHeap.length);
+                }
+                int i = oSize++;
+                while (i > 0) {
+                    int parent = (i - 1) >>> 1;
+                    if (oHeap[parent] >= s) {
+                        break;
+                    }
+                    oHeap[i] = oHeap[parent];
+                    i = parent;
+                }
+                oHeap[i] = s;
+                return;
+            }
+            if (s >= oHeap[0]) {
+                return;
+            }
+            int i = 0;
+            while (true) {
+                int child = 2 * i + 1;
+                if (child >= oSize) {
+                    break;
+                }
+                if (child + 1 < oSize && oHeap[child + 1] > oHeap[child]) {
+                    child++;
+                }
+                if (oHeap[child] <= s) {
+                    break;
+                }
+                oHeap[i] = oHeap[child];
+                i = child;
+            }
+            oHeap[i] = s;
+        }
+
+        /** Drops people infected after {@code end} (a time-ordered suffix of the ids). */
+        private void trimAfter(double end) {
+            int keep = n;
+            while (keep > 0 && infection[keep - 1] > end) {
+                keep--;
+            }
+            n = keep;
         }
 
         private void record(double t, int from, int gen) {
@@ -256,7 +324,7 @@ public final class OutbreakSimulator {
                 Arrays.copyOf(onset, n), outcome == null ? null : Arrays.copyOf(outcome, n),
                 outcomeTime == null ? null : Arrays.copyOf(outcomeTime, n), Arrays.copyOf(generation, n),
                 Arrays.copyOf(offspring, n), observationEnd, reason, attempts,
-                exposures == null ? null : exposures.build());
+                exposures == null ? null : exposures.build(n));
         }
     }
 }

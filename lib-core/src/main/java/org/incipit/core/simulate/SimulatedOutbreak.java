@@ -106,8 +106,9 @@ public final class SimulatedOutbreak {
     }
 
     /**
-     * @return the observation end in days: the stop day, or the time of the last (maxCases-th)
-     *         infection when the case limit stopped the outbreak; +&infin; if it died out with no
+     * @return the observation end in days: the stop day, the time of the last (maxCases-th)
+     *         infection when the case limit stopped the outbreak, or the time of the
+     *         maxOnsets-th onset when the onset limit did; +&infin; if it died out with no
      *         day limit
      */
     public double observationEnd() {

@@ -191,6 +191,32 @@ class OutbreakSimulatorTest {
     }
 
     /**
+     * The onset rule stops exactly at the n-th onset: compared with a longer run (same seed),
+     * the end is the n-th smallest onset of the long run and the line list is the long run's
+     * prefix of people infected up to then.
+     */
+    @Test
+    void onsetRuleStopsAtTheNthOnset() {
+        SimulatedOutbreak full = OutbreakSimulator.simulate(rng(SEED + 4), standard().indexCases(20).maxCases(20_000).build());
+        assertEquals(StopReason.CASE_LIMIT, full.stopReason());
+        int n = 1500;
+        SimulatedOutbreak o = OutbreakSimulator.simulate(rng(SEED + 4),
+            standard().indexCases(20).maxCases(20_000).maxOnsets(n).build());
+        assertEquals(StopReason.ONSET_LIMIT, o.stopReason());
+        double[] sorted = full.onsetTimes();
+        Arrays.sort(sorted);
+        assertTrue(sorted[n - 1] < full.observationEnd(), "long run covers the n-th onset");
+        assertEquals(sorted[n - 1], o.observationEnd());
+        double end = o.observationEnd();
+        int expected = (int) Arrays.stream(full.infectionTimes()).filter(t -> t <= end).count();
+        assertEquals(expected, o.size());
+        assertArrayEquals(Arrays.copyOf(full.onsetTimes(), expected), o.onsetTimes());
+        assertEquals(n, Arrays.stream(o.onsetTimes()).filter(t -> t <= end).count());
+        assertEquals(n, Arrays.stream(o.dailyOnsets()).sum());
+        assertEquals(expected, o.exposures().orElseThrow().size());
+    }
+
+    /**
      * Conditioned generation means vs the branching formula (Athreya and Ney 1972; see
      * OffspringLaw). One index case, generation intervals uniform on [0.9, 1.1] so that
      * generation g is infected within [0.9 g, 1.1 g] and generations 0..2 are complete when the
@@ -277,6 +303,7 @@ class OutbreakSimulatorTest {
         OffspringLaw law = OffspringLaw.poisson(2);
         assertThrows(IllegalArgumentException.class, () -> OutbreakOptions.builder(law, gi(), incubation()).maxCases(0).build());
         assertThrows(IllegalArgumentException.class, () -> OutbreakOptions.builder(law, gi(), incubation()).stopDay(0).build());
+        assertThrows(IllegalArgumentException.class, () -> OutbreakOptions.builder(law, gi(), incubation()).maxOnsets(0).build());
         assertThrows(IllegalArgumentException.class, () -> OutbreakOptions.builder(law, gi(), incubation()).indexCases(0).build());
         assertThrows(IllegalArgumentException.class, () -> OutbreakOptions.builder(law, gi(), null).build());
         assertThrows(IllegalArgumentException.class,
