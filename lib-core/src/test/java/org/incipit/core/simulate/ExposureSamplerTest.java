@@ -32,7 +32,7 @@ class ExposureSamplerTest {
     }
 
     /** Structural facts that hold in every regime. */
-    private static void checkStructure(ExposureRecords x) {
+    static void checkStructure(ExposureRecords x) {
         for (int i = 0; i < x.size(); i++) {
             int m = x.candidateCount(i);
             assertTrue(m >= 1);

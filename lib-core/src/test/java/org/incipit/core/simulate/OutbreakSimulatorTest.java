@@ -7,6 +7,7 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.Arrays;
+import java.util.stream.Stream;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.apache.commons.rng.simple.RandomSource;
 import org.incipit.core.EstimationException;
@@ -14,6 +15,8 @@ import org.incipit.core.branching.OffspringLaw;
 import org.incipit.distributions.DelayDistribution;
 import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.MethodSource;
 
 /**
  * Statistical checks use "within 4 standard errors": two-sided false-alarm probability
@@ -286,9 +289,18 @@ class OutbreakSimulatorTest {
         assertTrue(e.getMessage().contains("20 attempts"), e.getMessage());
     }
 
-    @Test
-    void exposuresAreRecordedForEveryCase() {
-        SimulatedOutbreak o = OutbreakSimulator.simulate(rng(SEED + 5), standard().conditionOnSurvival(100).build());
+    static Stream<ExposureModel> exposureModels() {
+        return Stream.of(ExposureModel.open(0.3, 2.0),
+            ExposureModel.open(0.5, 1.0).withCategories(new double[] {1, 2}, new double[] {0.8, 0.2}),
+            ExposureModel.complete(0.2, 5, 1.5), ExposureModel.knownTotal(0.25, 8, 10),
+            ExposureModel.knownPoissonTotal(0.2, 6, 10));
+    }
+
+    @ParameterizedTest
+    @MethodSource("exposureModels")
+    void exposuresAreRecordedForEveryCase(ExposureModel model) {
+        SimulatedOutbreak o = OutbreakSimulator.simulate(rng(SEED + 5),
+            standard().exposures(model).conditionOnSurvival(100).build());
         ExposureRecords x = o.exposures().orElseThrow();
         assertEquals(o.size(), x.size());
         for (int i = 0; i < o.size(); i++) {
@@ -296,6 +308,8 @@ class OutbreakSimulatorTest {
             assertEquals(o.onsetTime(i), x.onset(i));
             assertEquals(o.infectionTime(i), x.candidateTime(i, x.infectingCandidate(i)));
         }
+        ExposureSamplerTest.checkStructure(x);
+        assertEquals(model.recording(), x.recording());
     }
 
     @Test
