@@ -57,8 +57,8 @@ print("# mpmath %s, mp.dps = 60; python3 reference/branching_reference.py" % mp.
 print("# q: mpmath.findroot(f(s) - s, (0, 1 - 1e-40), solver='bisect', maxsteps=400) + Newton; "
       "closed-form rows: lambertw / 1/R")
 print("family,R,k,method,q,one_minus_q,cond_mean_1,cond_mean_2,cond_mean_3")
-Rs = ["0.5", "1", "1.0001", "1.001", "1.01", "1.1", "1.5", "2", "3", "5", "10", "20"]
-ks = ["0.01", "0.02", "0.1", "0.5", "1", "2", "10", "100"]
+Rs = ["0.5", "1", "1.000001", "1.00001", "1.0001", "1.001", "1.01", "1.1", "1.5", "2", "3", "5", "10", "20"]
+ks = ["0.001", "0.01", "0.02", "0.1", "0.5", "1", "2", "10", "100"]
 rows = []
 for Rs_ in Rs:
     rows.append(("poisson", Rs_, ""))

@@ -96,6 +96,16 @@ public final class NegativeBinomialOffspring extends OffspringLaw {
     }
 
     @Override
+    double chordExcess(double u) {
+        // with a = Ru/k, L = log1p(a), c = 1 - e^{-kL}:
+        // c - u = (R - 1) u - (k a - c) and k a - c = k (a - L) + (kL + expm1(-kL))
+        double k = dispersionOf();
+        double a = mean() * u / k;
+        double l = Math.log1p(a);
+        return (mean() - 1) - (k * logTail(a) + expTail(k * l)) / u;
+    }
+
+    @Override
     double directPgf(double s) {
         return Math.exp(-dispersionOf() * Math.log1p(mean() * (1 - s) / dispersionOf()));
     }

@@ -38,6 +38,12 @@ public final class PoissonOffspring extends OffspringLaw {
     }
 
     @Override
+    double chordExcess(double u) {
+        // 1 - e^{-Ru} - u = (R - 1) u - (Ru + expm1(-Ru))
+        return (mean() - 1) - expTail(mean() * u) / u;
+    }
+
+    @Override
     double directPgf(double s) {
         return Math.exp(mean() * (s - 1));
     }
