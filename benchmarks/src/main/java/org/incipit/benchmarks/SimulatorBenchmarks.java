@@ -2,16 +2,14 @@ package org.incipit.benchmarks;
 
 import java.util.concurrent.TimeUnit;
 import org.apache.commons.rng.UniformRandomProvider;
-import org.apache.commons.rng.sampling.distribution.AhrensDieterMarsagliaTsangGammaSampler;
 import org.apache.commons.rng.simple.RandomSource;
 import org.incipit.core.branching.OffspringLaw;
 import org.incipit.core.simulate.ExposureModel;
 import org.incipit.core.simulate.OutbreakOptions;
 import org.incipit.core.simulate.OutbreakSimulator;
 import org.incipit.core.simulate.SimulatedOutbreak;
-import org.incipit.distributions.DailyMasses;
 import org.incipit.distributions.DelayDistribution;
-import org.incipit.distributions.Discretisation;
+import org.incipit.distributions.GammaDelay;
 import org.openjdk.jmh.annotations.Benchmark;
 import org.openjdk.jmh.annotations.BenchmarkMode;
 import org.openjdk.jmh.annotations.Level;
@@ -43,11 +41,11 @@ public class SimulatorBenchmarks {
     @Setup(Level.Trial)
     public void setUp() {
         OffspringLaw law = OffspringLaw.negativeBinomial(2, 0.5);
-        DelayDistribution gi = new BenchGamma(4, 0.8);
-        DelayDistribution inc = new BenchGamma(5, 1);
+        DelayDistribution gi = GammaDelay.ofShapeRate(4, 0.8);
+        DelayDistribution inc = GammaDelay.ofShapeRate(5, 1);
         plain = OutbreakOptions.builder(law, gi, inc).maxCases(cases).conditionOnSurvival(1000).build();
         withOutcomesAndExposures = OutbreakOptions.builder(law, gi, inc)
-            .outcomes(0.05, new BenchGamma(3, 0.2), new BenchGamma(6, 0.4))
+            .outcomes(0.05, GammaDelay.ofShapeRate(3, 0.2), GammaDelay.ofShapeRate(6, 0.4))
             .exposures(ExposureModel.open(0.3, 1.0))
             .maxCases(cases).conditionOnSurvival(1000).build();
         rng = RandomSource.XO_RO_SHI_RO_128_PP.create(20261201L);
@@ -61,39 +59,5 @@ public class SimulatorBenchmarks {
     @Benchmark
     public SimulatedOutbreak withOutcomesAndOpenExposures() {
         return OutbreakSimulator.simulate(rng, withOutcomesAndExposures);
-    }
-
-    /**
-     * Gamma delay for the benchmark only: samples by a fresh Ahrens-Dieter / Marsaglia-Tsang
-     * sampler per draw (the cost a distribution that stores no randomness pays).
-     */
-    static final class BenchGamma implements DelayDistribution {
-        private final double shape;
-        private final double rate;
-
-        BenchGamma(double shape, double rate) {
-            this.shape = shape;
-            this.rate = rate;
-        }
-
-        @Override public String familyName() { return "gamma"; }
-        @Override public double density(double x) { throw new UnsupportedOperationException(); }
-        @Override public double logDensity(double x) { throw new UnsupportedOperationException(); }
-        @Override public double cdf(double x) { throw new UnsupportedOperationException(); }
-        @Override public double survival(double x) { throw new UnsupportedOperationException(); }
-        @Override public double logCdf(double x) { throw new UnsupportedOperationException(); }
-        @Override public double logSurvival(double x) { throw new UnsupportedOperationException(); }
-        @Override public double quantile(double p) { throw new UnsupportedOperationException(); }
-        @Override public double mean() { return shape / rate; }
-        @Override public double variance() { return shape / (rate * rate); }
-        @Override public double laplaceTransform(double s) { throw new UnsupportedOperationException(); }
-        @Override public double laplaceAbscissa() { return -rate; }
-        @Override public DelayDistribution tilt(double r) { throw new UnsupportedOperationException(); }
-        @Override public DailyMasses discretise(int maxDay, Discretisation scheme) { throw new UnsupportedOperationException(); }
-
-        @Override
-        public double sample(UniformRandomProvider rng) {
-            return AhrensDieterMarsagliaTsangGammaSampler.of(rng, shape, 1 / rate).sample();
-        }
     }
 }

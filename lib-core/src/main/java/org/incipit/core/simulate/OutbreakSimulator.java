@@ -31,7 +31,7 @@ import org.incipit.distributions.DelayDistribution;
  * <p>Usage:
  * <pre>{@code
  * OutbreakOptions opts = OutbreakOptions.builder(OffspringLaw.negativeBinomial(2.0, 0.5),
- *         GammaDelay.ofShapeRate(4, 0.8), LogNormalDelay.of(1.6, 0.4))
+ *         GammaDelay.ofShapeRate(4, 0.8), LogNormalDelay.ofMeanLogSdLog(1.6, 0.4))
  *     .outcomes(0.02, GammaDelay.ofShapeRate(3, 0.2), GammaDelay.ofShapeRate(5, 0.3))
  *     .maxCases(2000).conditionOnSurvival(100)
  *     .exposures(ExposureModel.open(0.2, 1.5))

@@ -13,6 +13,9 @@ import org.apache.commons.rng.simple.RandomSource;
 import org.incipit.core.EstimationException;
 import org.incipit.core.branching.OffspringLaw;
 import org.incipit.distributions.DelayDistribution;
+import org.incipit.distributions.GammaDelay;
+import org.incipit.distributions.LogNormalDelay;
+import org.incipit.distributions.WeibullDelay;
 import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -33,11 +36,11 @@ class OutbreakSimulatorTest {
     }
 
     private static DelayDistribution gi() {
-        return TestDelays.exponential(1 / 5.0);
+        return GammaDelay.exponential(1 / 5.0);
     }
 
     private static DelayDistribution incubation() {
-        return TestDelays.uniform(2, 9);
+        return LogNormalDelay.ofMeanLogSdLog(1.6, 0.4);
     }
 
     private static void assertWithin4Se(double expected, double[] x, String what) {
@@ -73,7 +76,7 @@ class OutbreakSimulatorTest {
 
     private static OutbreakOptions.Builder standard() {
         return OutbreakOptions.builder(OffspringLaw.negativeBinomial(2, 0.5), gi(), incubation())
-            .outcomes(0.1, TestDelays.exponential(0.1), TestDelays.uniform(5, 15))
+            .outcomes(0.1, WeibullDelay.ofShapeScale(1.5, 12), GammaDelay.ofShapeRate(4, 0.4))
             .maxCases(3000)
             .exposures(ExposureModel.open(0.3, 2.0));
     }
@@ -99,8 +102,8 @@ class OutbreakSimulatorTest {
     @Test
     void drawsFollowTheConfiguredDistributions() {
         OffspringLaw law = OffspringLaw.negativeBinomial(0.8, 0.7);
-        DelayDistribution toDeath = TestDelays.exponential(0.1);
-        DelayDistribution toRecovery = TestDelays.uniform(5, 15);
+        DelayDistribution toDeath = WeibullDelay.ofShapeScale(1.5, 12);
+        DelayDistribution toRecovery = GammaDelay.ofShapeRate(4, 0.4);
         OutbreakOptions opts = OutbreakOptions.builder(law, gi(), incubation())
             .outcomes(0.1, toDeath, toRecovery).indexCases(4000).maxCases(1_000_000).build();
         SimulatedOutbreak o = OutbreakSimulator.simulate(rng(SEED), opts);
@@ -139,9 +142,9 @@ class OutbreakSimulatorTest {
             }
         }
         assertWithin4Se(5.0, gis, "generation interval mean (exponential, mean 5)");
-        assertWithin4Se(5.5, inc, "incubation mean (uniform 2..9)");
-        assertWithin4Se(10.0, Arrays.copyOf(dd, nd), "onset to death mean (exponential, mean 10)");
-        assertWithin4Se(10.0, Arrays.copyOf(rd, nr), "onset to recovery mean (uniform 5..15)");
+        assertWithin4Se(incubation().mean(), inc, "incubation mean (lognormal)");
+        assertWithin4Se(toDeath.mean(), Arrays.copyOf(dd, nd), "onset to death mean (Weibull)");
+        assertWithin4Se(10.0, Arrays.copyOf(rd, nr), "onset to recovery mean (gamma 4, 0.4: 10)");
         // exponential: variance = mean^2, checked through E[X^2] = 50 within 4 SE of X^2
         assertWithin4Se(50.0, Arrays.stream(gis).map(v -> v * v).toArray(), "generation interval E[X^2]");
         assertChiSquare(gi(), gis, "generation interval");
@@ -221,9 +224,9 @@ class OutbreakSimulatorTest {
 
     /**
      * Conditioned generation means vs the branching formula (Athreya and Ney 1972; see
-     * OffspringLaw). One index case, generation intervals uniform on [0.9, 1.1] so that
-     * generation g is infected within [0.9 g, 1.1 g] and generations 0..2 are complete when the
-     * 400th infection stops the run (checked). Survival = reaching 400 infections; the chance
+     * OffspringLaw). One index case, generation intervals gamma(400, 400) (mean 1 day,
+     * sd 0.05) so that generations are separated in time and generations 0..2 are complete when
+     * the 400th infection stops the run (checked). Survival = reaching 400 infections; the chance
      * of extinction after that is q^P with P pending infections (sum of offspring counts minus
      * non-index cases); in a 5000-run check P was at least 116, so q^P < 1e-43 for Poisson(1.5).
      * Z_n is the sum of the offspring counts of generation n - 1.
@@ -245,7 +248,7 @@ class OutbreakSimulatorTest {
     }
 
     private static void checkConditionedMeans(OffspringLaw law, int runs, long seed) {
-        OutbreakOptions opts = OutbreakOptions.builder(law, TestDelays.uniform(0.9, 1.1), incubation())
+        OutbreakOptions opts = OutbreakOptions.builder(law, GammaDelay.ofShapeRate(400, 400), incubation())
             .maxCases(400).conditionOnSurvival(1000).build();
         UniformRandomProvider r = rng(seed);
         double[][] z = new double[3][runs];

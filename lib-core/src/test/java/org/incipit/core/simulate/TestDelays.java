@@ -6,43 +6,13 @@ import org.incipit.distributions.DelayDistribution;
 import org.incipit.distributions.Discretisation;
 
 /**
- * Test-scope delay distributions with closed forms (exponential; uniform on [a, b]), used so
- * that simulator tests do not depend on the parametric families. Only what the simulator and
- * its tests use is implemented: tilt and discretise are not needed and throw.
+ * Test-scope uniform delay on [a, b], for the one check that needs an incubation period bounded
+ * away from 0 (a complete exposure history wholly before onset); the parametric families all
+ * start at 0. Only what that test uses is implemented: tilt and discretise throw.
  */
 final class TestDelays {
 
     private TestDelays() {
-    }
-
-    /** Exp(rate): mean 1/rate, variance 1/rate^2; sampled by inversion. */
-    static DelayDistribution exponential(double rate) {
-        return new Closed("exponential", 1 / rate, 1 / (rate * rate)) {
-            @Override
-            public double cdf(double x) {
-                return x <= 0 ? 0 : -Math.expm1(-rate * x);
-            }
-
-            @Override
-            public double density(double x) {
-                return x < 0 ? 0 : rate * Math.exp(-rate * x);
-            }
-
-            @Override
-            public double quantile(double p) {
-                return -Math.log1p(-p) / rate;
-            }
-
-            @Override
-            public double laplaceTransform(double s) {
-                return s > -rate ? rate / (rate + s) : Double.POSITIVE_INFINITY;
-            }
-
-            @Override
-            public double laplaceAbscissa() {
-                return -rate;
-            }
-        };
     }
 
     /** Uniform on [a, b]: mean (a+b)/2, variance (b-a)^2/12. */
