@@ -20,7 +20,7 @@ import org.slf4j.LoggerFactory;
  * likelihood {r : 2[&#8467;(r&#770;) &minus; &#8467;<sub>p</sub>(r)] &le;
  * &chi;&sup2;<sub>1,level</sub>} with all other coefficients and, for NB, k re-maximised at each r
  * (limits found by Brent's method). A profile limit that cannot be bracketed within 50 standard
- * errors is reported as infinite.
+ * errors (z se) is reported as infinite.
  *
  * <p>Days absent from the input are treated as missing, not as zero counts: pass zero counts
  * explicitly. Zero counts are used as observations. Stateless and thread-safe.
@@ -158,18 +158,65 @@ public final class GrowthRateEstimator {
         double z = NormalDistribution.of(0, 1).inverseSurvivalProbability((1 - options.level()) / 2);
         Estimate wald = new Estimate(rate, rate - z * seRate, rate + z * seRate, options.level(),
                 "wald");
-        double crit = z * z; // chi-square(1) quantile at level
         double llMax = r.logLik();
-        java.util.function.DoubleUnaryOperator g = rr -> {
-            double[] off = new double[n];
+        // Profile fits are warm-started from the ML coefficients without the rate column.
+        double[] betaRest = new double[p - 1];
+        betaRest[0] = r.beta()[0];
+        for (int j = 2; j < p; j++) {
+            betaRest[j - 1] = r.beta()[j];
+        }
+        double kHat = r.k();
+        java.util.function.DoubleUnaryOperator g;
+        if (nb) {
+            double lfyNb = LogLinearGlm.sumLogFactorial(y);
+            g = rr -> {
+                double[] off = new double[n];
+                for (int i = 0; i < n; i++) {
+                    off[i] = rr * tc[i];
+                }
+                double llNewton = LogLinearGlm.newtonNegBinLogLik(xProfile, y, off, betaRest, kHat,
+                        lfyNb);
+                if (!Double.isNaN(llNewton)) {
+                    return Math.sqrt(Math.max(0, 2 * (llMax - llNewton))) - z;
+                }
+                LogLinearGlm.Result pr = LogLinearGlm.fit(xProfile, y, off, nb, true, betaRest,
+                        kHat, false);
+                return Math.sqrt(Math.max(0, 2 * (llMax - pr.logLik()))) - z;
+            };
+        } else {
+            // Poisson with only an intercept and day-of-week cells left: the profile maximum is
+            // closed form, exp(a + delta_g) = Y_g / sum_{i in g} exp(r t_i) per cell g, giving
+            // l_p(r) = r sum y_i t_i + sum_g Y_g log(Y_g / S_g(r)) - sum_g Y_g - sum log y_i!.
+            int[] cell = new int[n];
+            int cells = 1 + dummies.size();
             for (int i = 0; i < n; i++) {
-                off[i] = rr * tc[i];
+                int res = Math.floorMod(days[lo + i], 7);
+                cell[i] = 1 + dummies.indexOf(res); // 0 = reference residue
             }
-            LogLinearGlm.Result pr = LogLinearGlm.fit(xProfile, y, off, nb, true);
-            return 2 * (llMax - pr.logLik()) - crit;
-        };
-        double lower = profileLimit(g, rate, -seRate);
-        double upper = profileLimit(g, rate, seRate);
+            double[] yCell = new double[cells];
+            double syt = 0;
+            for (int i = 0; i < n; i++) {
+                yCell[cell[i]] += y[i];
+                syt += y[i] * tc[i];
+            }
+            double lfy = LogLinearGlm.sumLogFactorial(y);
+            final double sumYt = syt;
+            g = rr -> {
+                double[] sCell = new double[cells];
+                for (int i = 0; i < n; i++) {
+                    sCell[cell[i]] += Math.exp(rr * tc[i]);
+                }
+                double ll = rr * sumYt - lfy;
+                for (int c = 0; c < cells; c++) {
+                    if (yCell[c] > 0) {
+                        ll += yCell[c] * (Math.log(yCell[c] / sCell[c]) - 1);
+                    }
+                }
+                return Math.sqrt(Math.max(0, 2 * (llMax - ll))) - z;
+            };
+        }
+        double lower = profileLimit(g, rate, -z * seRate);
+        double upper = profileLimit(g, rate, z * seRate);
         Estimate profile = new Estimate(rate, Math.min(lower, rate), Math.max(upper, rate),
                 options.level(), "profile");
         LOG.debug("growth fit [{}, {}] {}: r={} se={} iterations={}", firstDay, lastDay,
@@ -179,16 +226,23 @@ public final class GrowthRateEstimator {
                 profile, r.k(), r.logLik(), r.deviance(), pearson, r.iterations(), r.converged());
     }
 
-    /** Profile limit on the side of sign(step); bracket grows geometrically from one se. */
+    /**
+     * Profile limit on the side of sign(step), step = z se (the Wald half-width). g is the signed
+     * root statistic minus z, nearly linear in r, so Brent's method needs few evaluations; the
+     * bracket starts at 0.8 and 1.25 Wald half-widths and grows geometrically.
+     */
     private static double profileLimit(java.util.function.DoubleUnaryOperator g, double rate,
                                        double step) {
-        double inner = rate;
-        double width = step;
+        double inner = rate + 0.8 * step;
+        if (!(g.applyAsDouble(inner) < 0)) {
+            inner = rate;
+        }
+        double width = 1.25 * step;
         for (int tries = 0; tries < 12; tries++) {
             double outer = rate + width;
             double v = g.applyAsDouble(outer);
-            if (v > 0) {
-                BrentSolver solver = new BrentSolver(1e-14, 1e-15, 1e-12);
+            if (v >= 0) {
+                BrentSolver solver = new BrentSolver(1e-12, 1e-15, 0);
                 return solver.findRoot(g, Math.min(inner, outer), Math.max(inner, outer));
             }
             inner = outer;

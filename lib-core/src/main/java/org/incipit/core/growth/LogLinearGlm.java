@@ -38,14 +38,31 @@ final class LogLinearGlm {
      * @param capK    if true (profiles), a diverging k is capped at K_CAP instead of failing
      */
     static Result fit(double[][] x, double[] y, double[] offset, boolean negBin, boolean capK) {
+        return fit(x, y, offset, negBin, capK, null, Double.NaN, true);
+    }
+
+    /**
+     * @param betaStart      starting coefficients (warm start, e.g. inside a profile), or null
+     *                       to start from mu = y + 0.1
+     * @param kStart         starting dispersion for NB, NaN for the moment start
+     * @param withCovariance compute the covariance and Pearson statistic (not needed in profiles)
+     */
+    static Result fit(double[][] x, double[] y, double[] offset, boolean negBin, boolean capK,
+                      double[] betaStart, double kStart, boolean withCovariance) {
         int n = y.length;
         int p = n == 0 ? 0 : x[0].length;
         double[] mu = new double[n];
-        for (int i = 0; i < n; i++) {
-            mu[i] = y[i] + 0.1; // common practice start (as R's poisson()$initialize)
-        }
         double[] beta = new double[p];
+        if (betaStart == null) {
+            for (int i = 0; i < n; i++) {
+                mu[i] = y[i] + 0.1; // common practice start (as R's poisson()$initialize)
+            }
+        } else {
+            System.arraycopy(betaStart, 0, beta, 0, p);
+            updateMu(x, offset, beta, mu, y, Double.POSITIVE_INFINITY);
+        }
         double k = Double.POSITIVE_INFINITY;
+        double lfy = sumLogFactorial(y);
         int iterations = 0;
         boolean converged;
         if (!negBin) {
@@ -53,25 +70,33 @@ final class LogLinearGlm {
             iterations = o.iterations;
             converged = o.converged;
         } else {
-            IrlsOut o = irls(x, y, offset, mu, beta, Double.POSITIVE_INFINITY, p == 0);
-            iterations += o.iterations;
-            k = startK(y, mu);
+            IrlsOut o;
+            if (Double.isNaN(kStart)) {
+                o = irls(x, y, offset, mu, beta, Double.POSITIVE_INFINITY, p == 0);
+                iterations += o.iterations;
+                k = startK(y, mu);
+            } else {
+                k = kStart;
+            }
             double prev = Double.NEGATIVE_INFINITY;
             converged = false;
             for (int outer = 0; outer < MAX_OUTER; outer++) {
-                k = mlK(y, mu, k, capK);
+                k = mlK(y, mu, k, capK, lfy);
                 o = irls(x, y, offset, mu, beta, k, p == 0);
                 iterations += o.iterations;
-                double ll = logLik(y, mu, k);
+                double ll = logLik(y, mu, k, lfy);
                 if (o.converged && Math.abs(ll - prev) <= 1e-13 * (Math.abs(ll) + 1)) {
                     converged = true;
                     break;
                 }
                 prev = ll;
             }
-            k = mlK(y, mu, k, capK);
+            k = mlK(y, mu, k, capK, lfy);
         }
-        double ll = logLik(y, mu, k);
+        double ll = logLik(y, mu, k, lfy);
+        if (!withCovariance) {
+            return new Result(beta, null, k, ll, Double.NaN, Double.NaN, iterations, converged, mu);
+        }
         double dev = deviance(y, mu, k);
         double pearson = 0;
         for (int i = 0; i < n; i++) {
@@ -201,17 +226,30 @@ final class LogLinearGlm {
     }
 
     static double logLik(double[] y, double[] mu, double k) {
+        return logLik(y, mu, k, sumLogFactorial(y));
+    }
+
+    static double sumLogFactorial(double[] y) {
         double s = 0;
+        for (double v : y) {
+            s += LogGamma.value(v + 1);
+        }
+        return s;
+    }
+
+    /** Full log-likelihood; {@code lfy} is the sum of log y! (constant, computed once). */
+    static double logLik(double[] y, double[] mu, double k, double lfy) {
+        double s = -lfy;
         if (Double.isInfinite(k)) {
             for (int i = 0; i < y.length; i++) {
-                s += (y[i] > 0 ? y[i] * Math.log(mu[i]) : 0) - mu[i] - LogGamma.value(y[i] + 1);
+                s += (y[i] > 0 ? y[i] * Math.log(mu[i]) : 0) - mu[i];
             }
             return s;
         }
         double lgk = LogGamma.value(k);
         for (int i = 0; i < y.length; i++) {
             double km = k + mu[i];
-            s += LogGamma.value(y[i] + k) - lgk - LogGamma.value(y[i] + 1)
+            s += LogGamma.value(y[i] + k) - lgk
                     + k * Math.log(k / km) + (y[i] > 0 ? y[i] * Math.log(mu[i] / km) : 0);
         }
         return s;
@@ -232,6 +270,136 @@ final class LogLinearGlm {
         return d;
     }
 
+    /**
+     * NB2 log-likelihood maximised over (beta, log k) by Newton's method with the observed
+     * Hessian and step halving, from a warm start (used inside profiles, where the start is
+     * close). Returns NaN if Newton fails to increase the likelihood, so that the caller can fall
+     * back to the IRLS/k alternation.
+     */
+    static double newtonNegBinLogLik(double[][] x, double[] y, double[] offset, double[] betaStart,
+                                     double kStart, double lfy) {
+        int n = y.length;
+        int p = betaStart.length;
+        int q = p + 1;
+        double[] theta = new double[q];
+        System.arraycopy(betaStart, 0, theta, 0, p);
+        theta[p] = Math.log(kStart);
+        double[] mu = new double[n];
+        double ll = nbAt(x, offset, theta, mu, y, lfy);
+        DMatrixRMaj h = new DMatrixRMaj(q, q);
+        DMatrixRMaj grad = new DMatrixRMaj(q, 1);
+        DMatrixRMaj step = new DMatrixRMaj(q, 1);
+        LinearSolverDense<DMatrixRMaj> solver = LinearSolverFactory_DDRM.symmPosDef(q);
+        for (int it = 0; it < 50; it++) {
+            double k = Math.exp(theta[p]);
+            h.zero();
+            grad.zero();
+            double dk = 0;
+            double dkk = 0;
+            double digK = Digamma.value(k);
+            double trigK = Trigamma.value(k);
+            for (int i = 0; i < n; i++) {
+                double m = mu[i];
+                double km = k + m;
+                double ge = k * (y[i] - m) / km;          // dl/deta
+                double hee = (y[i] + k) * k * m / (km * km); // -d2l/deta2
+                double hek = k * (y[i] - m) * m / (km * km); // d2l/deta du
+                double[] xi = x[i];
+                for (int r = 0; r < p; r++) {
+                    grad.data[r] += ge * xi[r];
+                    for (int c = 0; c <= r; c++) {
+                        h.data[r * q + c] += hee * xi[r] * xi[c];
+                    }
+                    h.data[p * q + r] -= hek * xi[r];
+                }
+                dk += digammaShift(y[i], k, digK) + Math.log(k / km) + 1 - (y[i] + k) / km;
+                dkk += trigammaShift(y[i], k, trigK) + 1 / k - 2 / km + (y[i] + k) / (km * km);
+            }
+            double gu = k * dk;
+            grad.data[p] = gu;
+            h.data[p * q + p] = -(gu + k * k * dkk);
+            for (int r = 0; r < q; r++) {
+                for (int c = 0; c < r; c++) {
+                    h.data[c * q + r] = h.data[r * q + c];
+                }
+            }
+            if (!solver.setA(h)) {
+                return Double.NaN; // negative Hessian not definite here
+            }
+            solver.solve(grad, step);
+            double[] old = theta.clone();
+            double t = 1;
+            double llNew = Double.NaN;
+            for (int half = 0; half < 30; half++) {
+                for (int r = 0; r < q; r++) {
+                    theta[r] = old[r] + t * step.data[r];
+                }
+                llNew = nbAt(x, offset, theta, mu, y, lfy);
+                if (llNew >= ll - 1e-12 * Math.abs(ll)) {
+                    break;
+                }
+                t *= 0.5;
+            }
+            if (!(llNew >= ll - 1e-12 * Math.abs(ll)) || theta[p] > Math.log(K_CAP)) {
+                return Double.NaN;
+            }
+            double change = llNew - ll;
+            ll = llNew;
+            double maxStep = 0;
+            for (int r = 0; r < q; r++) {
+                maxStep = Math.max(maxStep, Math.abs(t * step.data[r]));
+            }
+            if (maxStep < 1e-10 || Math.abs(change) < 1e-14 * Math.abs(ll)) {
+                return ll;
+            }
+        }
+        return Double.NaN;
+    }
+
+    private static double nbAt(double[][] x, double[] offset, double[] theta, double[] mu,
+                               double[] y, double lfy) {
+        int p = theta.length - 1;
+        for (int i = 0; i < mu.length; i++) {
+            double eta = offset[i];
+            for (int r = 0; r < p; r++) {
+                eta += x[i][r] * theta[r];
+            }
+            mu[i] = Math.exp(eta);
+        }
+        return logLik(y, mu, Math.exp(theta[p]), lfy);
+    }
+
+    /** Counts up to this use the recurrence sums below instead of two special-function calls. */
+    private static final int SHIFT_SUM_LIMIT = 24;
+
+    /**
+     * psi(y + k) - psi(k) for a count y: by the recurrence psi(x + 1) = psi(x) + 1/x
+     * (Abramowitz &amp; Stegun 6.3.5) the sum of 1/(k + j), j &lt; y, for small y.
+     */
+    static double digammaShift(double y, double k, double digammaK) {
+        if (y <= SHIFT_SUM_LIMIT) {
+            double s = 0;
+            for (int j = 0; j < (int) y; j++) {
+                s += 1 / (k + j);
+            }
+            return s;
+        }
+        return Digamma.value(y + k) - digammaK;
+    }
+
+    /** psi'(y + k) - psi'(k) = -sum 1/(k + j)^2, j &lt; y (A&amp;S 6.4.6) for small y. */
+    static double trigammaShift(double y, double k, double trigammaK) {
+        if (y <= SHIFT_SUM_LIMIT) {
+            double s = 0;
+            for (int j = 0; j < (int) y; j++) {
+                double d = k + j;
+                s -= 1 / (d * d);
+            }
+            return s;
+        }
+        return Trigamma.value(y + k) - trigammaK;
+    }
+
     /** Moment start for k (as in Venables &amp; Ripley's theta.ml). */
     private static double startK(double[] y, double[] mu) {
         double s = 0;
@@ -244,31 +412,31 @@ final class LogLinearGlm {
     }
 
     /** Maximises the NB2 log-likelihood in k at fixed mu by safeguarded Newton on log k. */
-    static double mlK(double[] y, double[] mu, double kStart, boolean capK) {
+    static double mlK(double[] y, double[] mu, double kStart, boolean capK, double lfy) {
         double u = Math.log(kStart);
-        double ll = logLik(y, mu, Math.exp(u));
+        double ll = logLik(y, mu, Math.exp(u), lfy);
         for (int it = 1; it <= 200; it++) {
             double k = Math.exp(u);
             double s = 0;
             double h = 0;
+            double digK = Digamma.value(k);
+            double trigK = Trigamma.value(k);
             for (int i = 0; i < y.length; i++) {
                 double km = k + mu[i];
-                s += Digamma.value(y[i] + k) - Digamma.value(k) + Math.log(k / km)
-                        + (mu[i] - y[i]) / km;
-                h += Trigamma.value(y[i] + k) - Trigamma.value(k) + 1 / k - 2 / km
-                        + (y[i] + k) / (km * km);
+                s += digammaShift(y[i], k, digK) + Math.log(k / km) + (mu[i] - y[i]) / km;
+                h += trigammaShift(y[i], k, trigK) + 1 / k - 2 / km + (y[i] + k) / (km * km);
             }
             double gu = k * s;
             double hu = k * s + k * k * h;
             double step = hu < 0 ? -gu / hu : (gu > 0 ? 1.0 : -1.0);
             step = Math.max(-3, Math.min(3, step));
             double uNew = u + step;
-            double llNew = logLik(y, mu, Math.exp(uNew));
+            double llNew = logLik(y, mu, Math.exp(uNew), lfy);
             int halvings = 0;
             while (!(llNew >= ll - 1e-12 * Math.abs(ll)) && halvings < 40) {
                 step *= 0.5;
                 uNew = u + step;
-                llNew = logLik(y, mu, Math.exp(uNew));
+                llNew = logLik(y, mu, Math.exp(uNew), lfy);
                 halvings++;
             }
             u = uNew;
