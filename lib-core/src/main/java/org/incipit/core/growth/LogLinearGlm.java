@@ -85,13 +85,25 @@ final class LogLinearGlm {
                 o = irls(x, y, offset, mu, beta, k, p == 0);
                 iterations += o.iterations;
                 double ll = logLik(y, mu, k, lfy);
+                if (o.converged && Math.abs(ll - prev) <= 1e-9 * (Math.abs(ll) + 1) && p > 0) {
+                    // close: polish (beta, log k) jointly by Newton (quadratic convergence)
+                    double[] theta = new double[p + 1];
+                    double llN = newtonNegBin(x, y, offset, beta, k, lfy, theta);
+                    if (!Double.isNaN(llN)) {
+                        System.arraycopy(theta, 0, beta, 0, p);
+                        k = Math.exp(theta[p]);
+                        updateMu(x, offset, beta, mu, y, k);
+                        converged = true;
+                        break;
+                    }
+                }
                 if (o.converged && Math.abs(ll - prev) <= 1e-13 * (Math.abs(ll) + 1)) {
                     converged = true;
+                    k = mlK(y, mu, k, capK, lfy);
                     break;
                 }
                 prev = ll;
             }
-            k = mlK(y, mu, k, capK, lfy);
         }
         double ll = logLik(y, mu, k, lfy);
         if (!withCovariance) {
@@ -278,6 +290,12 @@ final class LogLinearGlm {
      */
     static double newtonNegBinLogLik(double[][] x, double[] y, double[] offset, double[] betaStart,
                                      double kStart, double lfy) {
+        return newtonNegBin(x, y, offset, betaStart, kStart, lfy, null);
+    }
+
+    /** As {@link #newtonNegBinLogLik}; if thetaOut is not null it receives (beta, log k). */
+    static double newtonNegBin(double[][] x, double[] y, double[] offset, double[] betaStart,
+                               double kStart, double lfy, double[] thetaOut) {
         int n = y.length;
         int p = betaStart.length;
         int q = p + 1;
@@ -350,6 +368,9 @@ final class LogLinearGlm {
                 maxStep = Math.max(maxStep, Math.abs(t * step.data[r]));
             }
             if (maxStep < 1e-10 || Math.abs(change) < 1e-14 * Math.abs(ll)) {
+                if (thetaOut != null) {
+                    System.arraycopy(theta, 0, thetaOut, 0, q);
+                }
                 return ll;
             }
         }
