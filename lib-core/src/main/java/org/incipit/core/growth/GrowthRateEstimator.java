@@ -44,7 +44,8 @@ public final class GrowthRateEstimator {
      *                                  increasing, a count negative, or fewer than 3 days have a
      *                                  non-zero count
      * @throws EstimationException      if the likelihood has no finite maximum (e.g. NB with no
-     *                                  overdispersion, where k diverges)
+     *                                  overdispersion, where k diverges, or a day-of-week level
+     *                                  whose counts are all zero)
      */
     public static GrowthRateFit fit(int[] days, long[] counts, GrowthRateOptions options) {
         check(days, counts);
@@ -108,6 +109,20 @@ public final class GrowthRateEstimator {
         if (options.dayOfWeek()) {
             for (int i = lo; i < hi; i++) {
                 levels.add(Math.floorMod(days[i], 7));
+            }
+        }
+        for (int level : levels) {
+            long sum = 0;
+            for (int i = lo; i < hi; i++) {
+                if (Math.floorMod(days[i], 7) == level) {
+                    sum += counts[i];
+                }
+            }
+            if (sum == 0) {
+                throw new EstimationException("day-of-week effect for residue " + level
+                        + " (floorMod(day, 7)) is not estimable in [" + firstDay + ", " + lastDay
+                        + "]: all its counts are zero, so its maximum-likelihood log rate ratio is "
+                        + "-infinity; fit without the day-of-week factor or widen the window");
             }
         }
         List<Integer> dummies = new ArrayList<>(levels);

@@ -71,6 +71,36 @@ public record GrowthRateFit(CountModel model, int firstDay, int lastDay, int day
         return standardErrors.clone();
     }
 
+    @Override
+    public boolean equals(Object o) {
+        return o instanceof GrowthRateFit f && model == f.model && firstDay == f.firstDay
+                && lastDay == f.lastDay && days == f.days
+                && coefficientNames.equals(f.coefficientNames)
+                && java.util.Arrays.equals(coefficients, f.coefficients)
+                && java.util.Arrays.equals(standardErrors, f.standardErrors)
+                && rateWald.equals(f.rateWald) && rateProfile.equals(f.rateProfile)
+                && Double.compare(dispersion, f.dispersion) == 0
+                && Double.compare(logLikelihood, f.logLikelihood) == 0
+                && Double.compare(deviance, f.deviance) == 0
+                && Double.compare(pearsonDispersion, f.pearsonDispersion) == 0
+                && iterations == f.iterations && converged == f.converged;
+    }
+
+    @Override
+    public int hashCode() {
+        return java.util.Objects.hash(model, firstDay, lastDay, days, coefficientNames,
+                java.util.Arrays.hashCode(coefficients), rateProfile, logLikelihood);
+    }
+
+    @Override
+    public String toString() {
+        return "GrowthRateFit[" + model + " days " + firstDay + ".." + lastDay + " (n=" + days
+                + "), " + coefficientNames + "=" + java.util.Arrays.toString(coefficients)
+                + ", se=" + java.util.Arrays.toString(standardErrors) + ", rate " + rateProfile
+                + ", k=" + dispersion + ", logLik=" + logLikelihood + ", deviance=" + deviance
+                + ", converged=" + converged + "]";
+    }
+
     /** @return the growth rate r per day (ML estimate). */
     public double rate() {
         return rateProfile.estimate();

@@ -192,6 +192,22 @@ class GrowthRateEstimatorTest {
     }
 
     @Test
+    void dayOfWeekLevelWithOnlyZerosIsNotEstimable() {
+        int[] d = new int[21];
+        long[] c = new long[21];
+        for (int t = 0; t < 21; t++) {
+            d[t] = t;
+            c[t] = t % 7 == 3 ? 0 : 5 + t;
+        }
+        EstimationException e = assertThrows(EstimationException.class, () -> GrowthRateEstimator
+                .fit(d, c, GrowthRateOptions.defaults().withDayOfWeek(true)));
+        assertTrue(e.getMessage().contains("residue 3"), e.getMessage());
+        // without the factor the same data fit, and two fits of the same data are equal values
+        assertEquals(GrowthRateEstimator.fit(d, c, GrowthRateOptions.defaults()),
+                GrowthRateEstimator.fit(d, c, GrowthRateOptions.defaults()));
+    }
+
+    @Test
     void windowComparisonKeepsFailuresAndOrder() {
         int[] d = days("pois_zeros");
         long[] c = counts("pois_zeros");
