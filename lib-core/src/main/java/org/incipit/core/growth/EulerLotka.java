@@ -109,6 +109,16 @@ public final class EulerLotka {
 
     /** log of sum_s w_s exp(-r s), by log-sum-exp so that large |r| neither overflows nor underflows. */
     static double logDiscreteTransform(double[] w, double r) {
+        if (Math.abs(r) * w.length < 600) {
+            // no overflow or underflow possible: direct sum
+            double s = 0;
+            for (int d = 0; d < w.length; d++) {
+                if (w[d] > 0) {
+                    s += w[d] * Math.exp(-r * d);
+                }
+            }
+            return Math.log(s);
+        }
         double max = Double.NEGATIVE_INFINITY;
         for (int d = 0; d < w.length; d++) {
             if (w[d] > 0) {
