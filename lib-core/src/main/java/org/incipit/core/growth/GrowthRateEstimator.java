@@ -56,6 +56,44 @@ public final class GrowthRateEstimator {
     }
 
     /**
+     * Fits the case series of {@code counts} over all its days.
+     *
+     * @param counts  daily counts (cases; deaths, recoveries and the imported split are not used)
+     * @param options model, day-of-week flag, level
+     * @return the fit
+     * @throws IllegalArgumentException if fewer than 3 days have a non-zero count
+     * @throws EstimationException      if the likelihood has no finite maximum
+     */
+    public static GrowthRateFit fit(org.incipit.core.observe.DailyCounts counts,
+                                    GrowthRateOptions options) {
+        return fit(counts, counts.firstDay(), counts.lastDay(), options);
+    }
+
+    /**
+     * Fits the case series of {@code counts} over the day numbers [firstDay, lastDay].
+     *
+     * @param counts   daily counts
+     * @param firstDay first day number of the window
+     * @param lastDay  last day number, &ge; firstDay
+     * @param options  model, day-of-week flag, level
+     * @return the fit
+     * @throws IllegalArgumentException as {@link #fit(int[], long[], int, int, GrowthRateOptions)}
+     * @throws EstimationException      if the likelihood has no finite maximum
+     */
+    public static GrowthRateFit fit(org.incipit.core.observe.DailyCounts counts, int firstDay,
+                                    int lastDay, GrowthRateOptions options) {
+        if (counts == null) {
+            throw new IllegalArgumentException("counts must not be null");
+        }
+        int[] c = counts.cases();
+        long[] lc = new long[c.length];
+        for (int i = 0; i < c.length; i++) {
+            lc[i] = c[i];
+        }
+        return fit(counts.days(), lc, firstDay, lastDay, options);
+    }
+
+    /**
      * Fits the days in [firstDay, lastDay].
      *
      * @param days     day numbers, strictly increasing (not modified)

@@ -205,6 +205,70 @@ public final class RenewalEstimator {
         return List.copyOf(out);
     }
 
+    /**
+     * {@link #slidingWindows(long[], long[], InfectivityProfile, int, GammaPrior, double)} on a
+     * {@link org.incipit.core.observe.DailyCounts}: local cases = cases &minus; imported (imported
+     * cases are part of the day's cases there), imported = the imported series if recorded. The
+     * windows' first and last days are reported as day numbers of {@code counts}.
+     *
+     * @param counts daily counts
+     * @param w      infectivity profile
+     * @param width  window width in days
+     * @param prior  gamma prior
+     * @param level  credible level
+     * @return one entry per window
+     */
+    public static List<WindowReproduction> slidingWindows(org.incipit.core.observe.DailyCounts counts,
+                                                          InfectivityProfile w, int width,
+                                                          GammaPrior prior, double level) {
+        long[][] li = split(counts);
+        List<WindowReproduction> byIndex = slidingWindows(li[0], li[1], w, width, prior, level);
+        List<WindowReproduction> out = new ArrayList<>(byIndex.size());
+        int d0 = counts.firstDay();
+        for (WindowReproduction x : byIndex) {
+            out.add(new WindowReproduction(x.firstDay() + d0, x.lastDay() + d0, x.localCases(),
+                    x.totalInfectiousness(), x.posterior(), x.reproductionNumber(), x.median(),
+                    x.sd()));
+        }
+        return List.copyOf(out);
+    }
+
+    /**
+     * {@link #constantReproductionNumber(long[], long[], InfectivityProfile, int, int, double)} on
+     * a {@link org.incipit.core.observe.DailyCounts}, window given as day numbers.
+     *
+     * @param counts   daily counts (local = cases &minus; imported)
+     * @param w        infectivity profile
+     * @param firstDay first day number fitted, after counts.firstDay()
+     * @param lastDay  last day number fitted
+     * @param level    coverage
+     * @return R with profile interval
+     */
+    public static Estimate constantReproductionNumber(org.incipit.core.observe.DailyCounts counts,
+                                                      InfectivityProfile w, int firstDay,
+                                                      int lastDay, double level) {
+        long[][] li = split(counts);
+        return constantReproductionNumber(li[0], li[1], w, firstDay - counts.firstDay(),
+                lastDay - counts.firstDay(), level);
+    }
+
+    private static long[][] split(org.incipit.core.observe.DailyCounts counts) {
+        if (counts == null) {
+            throw new IllegalArgumentException("counts must not be null");
+        }
+        int[] c = counts.cases();
+        long[] local = new long[c.length];
+        long[] imp = counts.hasImported() ? new long[c.length] : null;
+        int[] im = counts.hasImported() ? counts.imported() : null;
+        for (int i = 0; i < c.length; i++) {
+            local[i] = c[i] - (im == null ? 0 : im[i]);
+            if (imp != null) {
+                imp[i] = im[i];
+            }
+        }
+        return new long[][] {local, imp};
+    }
+
     private static void check(long[] local, long[] imported, InfectivityProfile w) {
         if (local == null || w == null) {
             throw new IllegalArgumentException("incidence and profile must not be null");

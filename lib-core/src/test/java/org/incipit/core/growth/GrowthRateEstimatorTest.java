@@ -165,6 +165,20 @@ class GrowthRateEstimatorTest {
     }
 
     @Test
+    void dailyCountsOverloadEqualsArrays() {
+        int[] d = days("dow_pois");
+        long[] c = counts("dow_pois");
+        org.incipit.core.observe.DailyCounts.Builder b = org.incipit.core.observe.DailyCounts.builder();
+        for (int i = 0; i < d.length; i++) {
+            b.add(d[i], (int) c[i]);
+        }
+        GrowthRateOptions o = GrowthRateOptions.defaults().withDayOfWeek(true);
+        assertEquals(GrowthRateEstimator.fit(d, c, o), GrowthRateEstimator.fit(b.build(), o));
+        assertEquals(GrowthRateEstimator.fit(d, c, 20, 40, o),
+                GrowthRateEstimator.fit(b.build(), 20, 40, o));
+    }
+
+    @Test
     void refusesFewerThanThreeNonZeroDays() {
         int[] d = {0, 1, 2, 3, 4};
         long[] c = {0, 2, 0, 0, 5};

@@ -157,6 +157,32 @@ class RenewalEstimatorTest {
     }
 
     @Test
+    void dailyCountsOverloadsSplitImportedFromLocal() {
+        List<String[]> d = csv("renewal_data.csv");
+        long[] local = column(d, 1);
+        long[] imported = column(d, 2);
+        org.incipit.core.observe.DailyCounts.Builder b = org.incipit.core.observe.DailyCounts
+                .builder().withImported();
+        for (int t = 0; t < local.length; t++) {
+            // day numbers start at 100; DailyCounts counts imported cases among the day's cases
+            b.add(100 + t, (int) (local[t] + imported[t]), org.incipit.core.observe.DailyCounts.ABSENT,
+                    org.incipit.core.observe.DailyCounts.ABSENT, (int) imported[t]);
+        }
+        org.incipit.core.observe.DailyCounts counts = b.build();
+        List<WindowReproduction> byArrays = RenewalEstimator.slidingWindows(local, imported,
+                weights(), 7, GammaPrior.vague(), 0.95);
+        List<WindowReproduction> byCounts = RenewalEstimator.slidingWindows(counts, weights(), 7,
+                GammaPrior.vague(), 0.95);
+        assertEquals(byArrays.size(), byCounts.size());
+        for (int i = 0; i < byArrays.size(); i++) {
+            assertEquals(byArrays.get(i).firstDay() + 100, byCounts.get(i).firstDay());
+            assertEquals(byArrays.get(i).posterior(), byCounts.get(i).posterior());
+        }
+        assertEquals(RenewalEstimator.constantReproductionNumber(local, imported, weights(), 1, 20,
+                0.95), RenewalEstimator.constantReproductionNumber(counts, weights(), 101, 120, 0.95));
+    }
+
+    @Test
     void zeroCasesGiveZeroLowerLimit() {
         InfectivityProfile w = new InfectivityProfile(new double[] {0, 1});
         Estimate e = RenewalEstimator.constantReproductionNumber(new long[] {4, 0, 0}, null, w, 1, 2,
