@@ -219,17 +219,26 @@ public final class GrowthRateEstimator {
             betaRest[j - 1] = r.beta()[j];
         }
         double kHat = r.k();
+        // NB profile warm start: (beta without rate, log k) of the last profile point
+        double[] thetaHat = java.util.Arrays.copyOf(betaRest, p);
+        thetaHat[p - 1] = Math.log(kHat);
+        double[][] lastTheta = {thetaHat};
         java.util.function.DoubleUnaryOperator g;
         if (nb) {
             double lfyNb = LogLinearGlm.sumLogFactorial(y);
+
             g = rr -> {
                 double[] off = new double[n];
                 for (int i = 0; i < n; i++) {
                     off[i] = rr * tc[i];
                 }
-                double llNewton = LogLinearGlm.newtonNegBinLogLik(xProfile, y, off, betaRest, kHat,
-                        lfyNb);
+                // warm start from the last profile point (Brent's iterates converge on the limit)
+                double[] start = java.util.Arrays.copyOf(lastTheta[0], p - 1);
+                double[] theta = new double[p];
+                double llNewton = LogLinearGlm.newtonNegBin(xProfile, y, off, start,
+                        Math.exp(lastTheta[0][p - 1]), lfyNb, theta);
                 if (!Double.isNaN(llNewton)) {
+                    lastTheta[0] = theta;
                     return Math.sqrt(Math.max(0, 2 * (llMax - llNewton))) - z;
                 }
                 LogLinearGlm.Result pr = LogLinearGlm.fit(xProfile, y, off, nb, true, betaRest,
@@ -269,6 +278,7 @@ public final class GrowthRateEstimator {
             };
         }
         double lower = profileLimit(g, rate, -z * seRate);
+        lastTheta[0] = thetaHat; // the other side starts again from the maximum
         double upper = profileLimit(g, rate, z * seRate);
         Estimate profile = new Estimate(rate, Math.min(lower, rate), Math.max(upper, rate),
                 options.level(), "profile");

@@ -74,6 +74,20 @@ final class LogLinearGlm {
             if (Double.isNaN(kStart)) {
                 o = irls(x, y, offset, mu, beta, Double.POSITIVE_INFINITY, p == 0);
                 iterations += o.iterations;
+                // Score for 1/k at the Poisson fit, sum[(y - mu)^2 - y] (Cameron & Trivedi 1986,
+                // J Appl Econometrics 1, eq. for the LM test of alpha = 0): if it is not positive
+                // the likelihood increases (locally) towards k = infinity: no finite NB2 maximum there.
+                double score = 0;
+                for (int i = 0; i < n; i++) {
+                    double d = y[i] - mu[i];
+                    score += d * d - y[i];
+                }
+                if (!(score > 0) && !capK) {
+                    throw new EstimationException("negative binomial growth fit: the counts show no "
+                            + "overdispersion around the Poisson fit (sum[(y - mu)^2 - y] = " + score
+                            + " <= 0), so the maximum-likelihood dispersion k is infinite; use the "
+                            + "Poisson model");
+                }
                 k = startK(y, mu);
             } else {
                 k = kStart;
@@ -85,11 +99,16 @@ final class LogLinearGlm {
                 o = irls(x, y, offset, mu, beta, k, p == 0);
                 iterations += o.iterations;
                 double ll = logLik(y, mu, k, lfy);
-                if (o.converged && Math.abs(ll - prev) <= 1e-9 * (Math.abs(ll) + 1) && p > 0) {
+                if (o.converged && Math.abs(ll - prev) <= 1e-7 * (Math.abs(ll) + 1) && p > 0) {
                     // close: polish (beta, log k) jointly by Newton (quadratic convergence)
                     double[] theta = new double[p + 1];
                     double llN = newtonNegBin(x, y, offset, beta, k, lfy, theta);
                     if (!Double.isNaN(llN)) {
+                        if (theta[p] > Math.log(K_CAP) && !capK) {
+                            throw new EstimationException("negative binomial growth fit: the "
+                                    + "maximum-likelihood dispersion k diverges (k > " + K_CAP
+                                    + "); the counts show no overdispersion; use the Poisson model");
+                        }
                         System.arraycopy(theta, 0, beta, 0, p);
                         k = Math.exp(theta[p]);
                         updateMu(x, offset, beta, mu, y, k);
