@@ -14,14 +14,14 @@ import org.incipit.distributions.ParametricDelay;
 /**
  * The Euler&ndash;Lotka link between the exponential growth rate r and the reproduction number
  * R for a generation-interval distribution g (Wallinga &amp; Lipsitch 2007, Proc R Soc B 274,
- * eq. 2.7): 1 = R &int; e<sup>&minus;r t</sup> g(t) dt, i.e.
+ * 599&ndash;604): 1 = R &int; e<sup>&minus;r t</sup> g(t) dt, i.e.
  * R = 1 / M<sub>g</sub>(&minus;r) with M<sub>g</sub> the moment generating function, which is
  * {@code 1 / g.laplaceTransform(r)} in the {@link DelayDistribution} convention
  * (laplaceTransform(s) = E[e<sup>&minus;sX</sup>]).
  *
  * <p>For daily masses w<sub>s</sub>, s = 0, 1, ... (index = day), the discrete form is
  * R = 1 / &Sigma;<sub>s</sub> w<sub>s</sub> e<sup>&minus;r s</sup> (Wallinga &amp; Lipsitch 2007,
- * eq. 3.2, with intervals recorded to the whole day); the masses are renormalised to sum 1, so
+ * the form for intervals recorded to the whole day); the masses are renormalised to sum 1, so
  * a {@link DailyMasses} tail is dropped (truncate where the tail is negligible).
  *
  * <p>Declining epidemics (r &lt; 0) are supported where E[e<sup>|r|X</sup>] is finite: r must lie

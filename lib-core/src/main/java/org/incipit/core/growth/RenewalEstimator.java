@@ -150,7 +150,7 @@ public final class RenewalEstimator {
 
     /**
      * Time-varying R over sliding windows of {@code width} days, by the conjugate gamma
-     * posterior of Cori, Ferguson, Fraser &amp; Cauchemez 2013 (Am J Epidemiol 178, eq. in
+     * posterior of Cori, Ferguson, Fraser &amp; Cauchemez 2013 (Am J Epidemiol 178, 1505&ndash;1512;
      * Methods / Web Appendix 1): for the window ending on day t,
      * R ~ Gamma(shape = a + &Sigma; i<sub>s</sub>, scale = 1 / (1/b + &Sigma; &Lambda;<sub>s</sub>)),
      * sums over s = t &minus; width + 1 .. t, prior Gamma(a, b). Windows end on days

@@ -33,7 +33,7 @@ class EulerLotkaTest {
                 / (2 * sigma * sigma)) / (x * sigma * Math.sqrt(2 * Math.PI)), 400, 0);
     }
 
-    // Wallinga & Lipsitch 2007, Proc R Soc B 274, eq. 3.3: gamma generation interval,
+    // Wallinga & Lipsitch 2007, Proc R Soc B 274 (section numbers not cited; formula common practice): gamma generation interval,
     // R = (1 + r/rate)^shape. Transform by Simpson integration of the density (smooth for shape 3,
     // h = 0.005: error ~ h^4 f'''' well below 1e-10), hence 1e-9 relative.
     @ParameterizedTest
@@ -46,7 +46,7 @@ class EulerLotkaTest {
         assertEquals(expected, EulerLotka.reproductionNumber(g, r), 1e-9 * expected);
     }
 
-    // Wallinga & Lipsitch 2007, eq. 3.1 (exponential): R = 1 + r * mean. Simpson on [0, 1000]
+    // Wallinga & Lipsitch 2007 (exponential): R = 1 + r * mean. Simpson on [0, 1000]
     // (truncation at r = -0.2 leaves exp(-50)), 1e-9 relative.
     @ParameterizedTest
     @ValueSource(doubles = {-0.2, 0.01, 0.3})
@@ -69,7 +69,7 @@ class EulerLotkaTest {
                 2 * Math.ulp(expected));
     }
 
-    // Wallinga & Lipsitch 2007, eq. 3.4 (normal): R = exp(r mu - r^2 sigma^2 / 2). What is tested:
+    // Wallinga & Lipsitch 2007 (normal): R = exp(r mu - r^2 sigma^2 / 2). What is tested:
     // masses w_s proportional to exp(-(s - mu)^2 / (2 sigma^2)) on the integers s = 0..60 with
     // mu = 30, sigma = 2.5. By the Poisson summation formula the lattice sum of a Gaussian times
     // exp(-r s) equals the integral up to a relative error ~ 2 exp(-2 pi^2 sigma^2) ~ 1e-53 and the
@@ -90,7 +90,7 @@ class EulerLotkaTest {
 
     /**
      * SEIR with Erlang latent (m stages, mean L) and infectious (n stages, mean D) periods:
-     * Wearing, Rohani &amp; Keeling 2005, PLoS Med 2(7) e174, eq. 3.3:
+     * Wearing, Rohani &amp; Keeling 2005, PLoS Med 2(7) e174 (formula as recalled, re-derived below):
      * R = r (1 + r L/m)^m / [(1/D)(1 - (1 + r D/n)^(-n))].
      * Derivation: the generation interval is E + U, E ~ Erlang(m, m/L), U with density
      * S_I(u)/D (time of an infection during the infectious period, weighted by the chance of
