@@ -9,6 +9,7 @@ import org.incipit.core.growth.EulerLotka;
 import org.incipit.core.growth.GrowthRateEstimator;
 import org.incipit.core.growth.GrowthRateFit;
 import org.incipit.core.growth.GrowthRateOptions;
+import org.incipit.distributions.LogNormalDelay;
 import org.openjdk.jmh.annotations.Benchmark;
 import org.openjdk.jmh.annotations.BenchmarkMode;
 import org.openjdk.jmh.annotations.Mode;
@@ -19,7 +20,7 @@ import org.openjdk.jmh.annotations.State;
 
 /**
  * Growth-rate fit of 60 days (target &le; 1 ms, including both profile limits) and Euler-Lotka
- * evaluation from 60 daily masses. Data: seeded Poisson counts with r = 0.08 (invented).
+ * evaluation for a lognormal generation interval (target &le; 10 us) and from 60 daily masses. Data: seeded Poisson counts with r = 0.08 (invented).
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.AverageTime)
@@ -29,6 +30,7 @@ public class GrowthBenchmarks {
     private int[] days;
     private long[] counts;
     private double[] masses;
+    private final LogNormalDelay lognormal = LogNormalDelay.ofMeanSd(5.2, 2.8);
     private final GrowthRateOptions poisson = GrowthRateOptions.defaults();
     private final GrowthRateOptions negBin = GrowthRateOptions.defaults()
             .withModel(CountModel.NEGATIVE_BINOMIAL);
@@ -68,6 +70,17 @@ public class GrowthBenchmarks {
     @Benchmark
     public GrowthRateFit negativeBinomialFit60Days() {
         return GrowthRateEstimator.fit(days, counts, negBin);
+    }
+
+    /** Target: Euler-Lotka for a lognormal generation interval &le; 10 us. */
+    @Benchmark
+    public double eulerLotkaLognormal() {
+        return EulerLotka.reproductionNumber(lognormal, 0.1);
+    }
+
+    @Benchmark
+    public double eulerLotkaInverseLognormal() {
+        return EulerLotka.growthRate(lognormal, 1.8);
     }
 
     @Benchmark
