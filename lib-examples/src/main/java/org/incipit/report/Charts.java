@@ -10,8 +10,12 @@ import org.jfree.chart.ChartUtils;
 import org.jfree.chart.JFreeChart;
 import org.jfree.chart.axis.LogAxis;
 import org.jfree.chart.axis.NumberAxis;
+import org.jfree.chart.axis.NumberTickUnit;
 import org.jfree.chart.axis.SymbolAxis;
 import org.jfree.chart.plot.PlotOrientation;
+import org.jfree.chart.plot.ValueMarker;
+import org.jfree.chart.ui.RectangleAnchor;
+import org.jfree.chart.ui.TextAnchor;
 import org.jfree.chart.plot.XYPlot;
 import org.jfree.chart.renderer.xy.DeviationRenderer;
 import org.jfree.chart.renderer.xy.XYBarRenderer;
@@ -145,6 +149,10 @@ public final class Charts {
         XYSeriesCollection data = new XYSeriesCollection(s);
         LogAxis axis = new LogAxis(yLabel);
         axis.setSmallestValue(1e-3);
+        // ticks at powers of 2 (1, 2, 4, 8, ...): plain numbers, and one tick per doubling
+        axis.setTickUnit(new NumberTickUnit(Math.log10(2)));
+        axis.setNumberFormatOverride(new java.text.DecimalFormat("0.###",
+                java.text.DecimalFormatSymbols.getInstance(java.util.Locale.ROOT)));
         XYPlot plot = new XYPlot(data, new NumberAxis(xLabel), axis, null);
         XYLineAndShapeRenderer points = new XYLineAndShapeRenderer(false, true);
         points.setSeriesPaint(0, Color.DARK_GRAY);
@@ -183,6 +191,29 @@ public final class Charts {
      */
     public static void band(Path png, String title, String xLabel, String yLabel, double[] x, double[] estimate,
                             double[] lower, double[] upper) throws IOException {
+        band(png, title, xLabel, yLabel, x, estimate, lower, upper, Double.NaN, null);
+    }
+
+    /**
+     * As {@link #band(Path, String, String, String, double[], double[], double[], double[])},
+     * with a horizontal reference line (e.g. the true value of simulated data, or R = 1).
+     *
+     * @param png            output file
+     * @param title          figure title
+     * @param xLabel         time axis label
+     * @param yLabel         value axis label
+     * @param x              times, finite
+     * @param estimate       estimates, finite, same length
+     * @param lower          lower bounds, finite, &le; estimate
+     * @param upper          upper bounds, finite, &ge; estimate
+     * @param reference      height of the reference line, or NaN for none
+     * @param referenceLabel its label (used when {@code reference} is not NaN)
+     * @throws IllegalArgumentException if the data are invalid
+     * @throws IOException              if the file cannot be written
+     */
+    public static void band(Path png, String title, String xLabel, String yLabel, double[] x, double[] estimate,
+                            double[] lower, double[] upper, double reference, String referenceLabel)
+            throws IOException {
         sameLength("x", x, "estimate", estimate);
         sameLength("x", x, "lower", lower);
         sameLength("x", x, "upper", upper);
@@ -208,6 +239,9 @@ public final class Charts {
         NumberAxis yAxis = new NumberAxis(yLabel);
         yAxis.setAutoRangeIncludesZero(false);
         XYPlot plot = new XYPlot(data, new NumberAxis(xLabel), yAxis, r);
+        if (!Double.isNaN(reference)) {
+            plot.addRangeMarker(marker(reference, referenceLabel, false));
+        }
         write(png, chart(title, plot));
     }
 
@@ -224,6 +258,27 @@ public final class Charts {
      */
     public static void comparison(Path png, String title, String valueLabel, List<Comparison> rows)
             throws IOException {
+        comparison(png, title, valueLabel, rows, Double.NaN);
+    }
+
+    /**
+     * As {@link #comparison(Path, String, String, List)}, with the true value (known for
+     * simulated data) drawn as a dashed line across all rows; the value axis is widened to show
+     * it.
+     *
+     * @param png        output file
+     * @param title      figure title
+     * @param valueLabel label of the value axis
+     * @param rows       the quantities, at least one, on the same scale
+     * @param truth      the true value, or NaN for none
+     * @throws IllegalArgumentException if {@code rows} is empty or {@code truth} is infinite
+     * @throws IOException              if the file cannot be written
+     */
+    public static void comparison(Path png, String title, String valueLabel, List<Comparison> rows, double truth)
+            throws IOException {
+        if (Double.isInfinite(truth)) {
+            throw new IllegalArgumentException("truth must be finite or NaN, was " + truth);
+        }
         if (rows.isEmpty()) {
             throw new IllegalArgumentException("rows must not be empty");
         }
@@ -238,6 +293,10 @@ public final class Charts {
                     }
                 }
             }
+        }
+        if (!Double.isNaN(truth)) {
+            lo = Math.min(lo, truth);
+            hi = Math.max(hi, truth);
         }
         double margin = hi > lo ? 0.1 * (hi - lo) : Math.max(1, Math.abs(hi)) * 0.1;
         boolean clipped = false;
@@ -267,6 +326,9 @@ public final class Charts {
         valueAxis.setRange(lo - margin, hi + margin);
         XYPlot plot = new XYPlot(data, axis, valueAxis, r);
         plot.setOrientation(PlotOrientation.HORIZONTAL);
+        if (!Double.isNaN(truth)) {
+            plot.addRangeMarker(marker(truth, "true value", true));
+        }
         JFreeChart chart = chart(title, plot);
         if (clipped) {
             chart.addSubtitle(new TextTitle("whiskers reaching the edge of the plot are unbounded"));
@@ -279,6 +341,25 @@ public final class Charts {
         double upper = Double.isFinite(e.upper()) ? e.upper() : max;
         s.add(x, e.estimate(), lower, upper);
         return !Double.isFinite(e.lower()) || !Double.isFinite(e.upper());
+    }
+
+    private static ValueMarker marker(double value, String label, boolean vertical) {
+        ValueMarker m = new ValueMarker(value);
+        m.setPaint(Color.BLACK);
+        m.setStroke(new BasicStroke(1.5f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10f,
+                new float[] {6f, 4f}, 0f));
+        if (label != null) {
+            m.setLabel(label);
+            m.setLabelFont(new java.awt.Font(java.awt.Font.SANS_SERIF, java.awt.Font.PLAIN, 12));
+            if (vertical) {
+                m.setLabelAnchor(RectangleAnchor.TOP_RIGHT);
+                m.setLabelTextAnchor(TextAnchor.TOP_LEFT);
+            } else {
+                m.setLabelAnchor(RectangleAnchor.TOP_LEFT);
+                m.setLabelTextAnchor(TextAnchor.BOTTOM_LEFT);
+            }
+        }
+        return m;
     }
 
     private static XYSeries series(Curve c) {

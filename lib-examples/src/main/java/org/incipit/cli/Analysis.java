@@ -1,0 +1,368 @@
+package org.incipit.cli;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import org.incipit.core.EstimationException;
+import org.incipit.core.growth.CountModel;
+import org.incipit.core.growth.EulerLotka;
+import org.incipit.core.growth.GammaPrior;
+import org.incipit.core.growth.GrowthRateFit;
+import org.incipit.core.growth.InfectivityProfile;
+import org.incipit.core.growth.RenewalEstimator;
+import org.incipit.core.growth.WindowReproduction;
+import org.incipit.core.inference.Estimate;
+import org.incipit.core.observe.DailyCounts;
+import org.incipit.distributions.DelayFamilies;
+import org.incipit.distributions.DelayFamily;
+import org.incipit.distributions.Discretisation;
+import org.incipit.distributions.GammaDelay;
+import org.incipit.distributions.ParametricDelay;
+import org.incipit.io.CsvInput;
+import org.incipit.io.JsonOutput;
+import org.incipit.io.ReadOptions;
+import org.incipit.io.ReadResult;
+import org.incipit.io.TextTable;
+import org.incipit.report.Charts;
+import org.incipit.report.Comparison;
+import org.incipit.report.Curve;
+import org.incipit.report.HtmlReport;
+
+/**
+ * The whole early-phase analysis behind {@code demo} and {@code analyse}: reads the files
+ * given, runs every estimator that has its data, and writes a report folder ({@code report.html}
+ * with embedded figures, {@code results.json}, {@code figures/*.png}). Progress goes to stderr.
+ * A step whose estimator fails is reported in the page and the JSON (with the reason) and the
+ * others go on; bad input stops the whole run.
+ */
+final class Analysis {
+
+    /** What to analyse. */
+    record Inputs(Path counts, Path delays, String cutoff, Path intervals, Path incubation,
+                  String generationFamily, double generationMean, double generationSd,
+                  double[] generationMeanCi, double[] generationSdCi,
+                  String from, String to, ReadOptions read, JsonNode truth, String title, String origin) {
+    }
+
+    private final Inputs in;
+    private final Path out;
+    private final Path figures;
+    private final PrintWriter err;
+    private final HtmlReport report;
+    private final ObjectNode results = JsonOutput.object();
+    private final List<String> failures = new ArrayList<>();
+    private int step;
+    private final int steps;
+
+    // shared between steps
+    private GrowthRateFit growth;
+    private ReadResult<DailyCounts> counts;
+
+    Analysis(Inputs in, Path out, PrintWriter err) {
+        this.in = in;
+        this.out = out;
+        this.figures = out.resolve("figures");
+        this.err = err;
+        this.report = HtmlReport.titled(in.title());
+        this.steps = 4;
+    }
+
+    /** Runs every step and writes the folder; returns the results JSON. */
+    ObjectNode run() throws IOException {
+        Files.createDirectories(figures);
+        results.put("title", in.title());
+        results.put("caution", HtmlReport.CAUTION);
+        if (in.truth() != null) {
+            results.set("truth", in.truth());
+        }
+        dataSection();
+        progress("growth rate");
+        guarded("growth", this::growthSection);
+        if (in.generationFamily() != null) {
+            progress("reproduction number (Euler-Lotka)");
+            guarded("reproduction", this::reproductionSection);
+            progress("reproduction number over time (renewal equation)");
+            guarded("reproductionOverTime", this::renewalSection);
+        } else {
+            step += 2;
+            results.putNull("reproduction");
+            results.putNull("reproductionOverTime");
+        }
+        progress("writing the report");
+        ArrayNode f = results.putArray("failures");
+        failures.forEach(f::add);
+        Files.writeString(out.resolve("results.json"), JsonOutput.write(results), StandardCharsets.UTF_8);
+        report.write(out.resolve("report.html"));
+        return results;
+    }
+
+    private interface Step {
+        void run() throws IOException;
+    }
+
+    private void guarded(String name, Step s) throws IOException {
+        try {
+            s.run();
+        } catch (EstimationException e) {
+            String why = name + ": estimation failed: " + e.getMessage();
+            failures.add(why);
+            err.println("incipit: " + why);
+            err.flush();
+            ObjectNode o = results.putObject(name);
+            o.put("failed", e.getMessage());
+            report.section(title(name) + " (failed)", "No estimate could be made from these data.")
+                    .paragraph(why);
+        }
+    }
+
+    private static String title(String name) {
+        return switch (name) {
+            case "growth" -> "Growth rate";
+            case "reproduction" -> "Reproduction number";
+            case "reproductionOverTime" -> "Reproduction number over time";
+            default -> name;
+        };
+    }
+
+    private void progress(String what) {
+        step++;
+        err.println("incipit: [" + step + "/" + steps + "] " + what + " ...");
+        err.flush();
+    }
+
+    // ---------------------------------------------------------------- data
+
+    private void dataSection() {
+        counts = CsvInput.dailyCounts(in.counts(), in.read());
+        DailyCounts c = counts.data();
+        List<List<String>> rows = new ArrayList<>();
+        rows.add(List.of("daily counts", in.counts().getFileName().toString(),
+                c.size() + " days, " + c.totalCases() + " cases" + (c.hasDeaths() ? ", " + sum(c.deaths()) + " deaths"
+                        : "") + (c.hasRecoveries() ? ", " + sum(c.recoveries()) + " recoveries" : "")));
+        ObjectNode d = results.putObject("data");
+        d.put("counts", in.counts().toString());
+        d.put("days", c.size());
+        d.put("cases", c.totalCases());
+        String dayZero = counts.origin() == null ? "" : " Day 0 of the counts is " + counts.origin() + ".";
+        HtmlReport.Section s = report.section("Data", "The files are taken as complete for the days they cover: "
+                + "a day with no cases is a recorded zero, not a missing day.");
+        if (in.origin() != null) {
+            s.paragraph(in.origin());
+        }
+        s.paragraph("Files read." + dayZero);
+        s.table(List.of("what", "file", "contents"), rows);
+    }
+
+    private static int sum(int[] a) {
+        int s = 0;
+        for (int x : a) {
+            s += x;
+        }
+        return s;
+    }
+
+    // ---------------------------------------------------------------- growth
+
+    private void growthSection() throws IOException {
+        DailyCounts c = counts.data();
+        int first = in.from() == null ? c.firstDay() : (int) Cli.time(counts, "--from", in.from());
+        int last = in.to() == null ? c.lastDay() : (int) Cli.time(counts, "--to", in.to());
+        growth = GrowthCommand.fit(c, first, last, CountModel.POISSON, false, 0.95);
+        ObjectNode g = GrowthCommand.json(growth, "poisson");
+        results.set("growth", g);
+        double[] x = new double[c.size()];
+        double[] y = new double[c.size()];
+        for (int i = 0; i < x.length; i++) {
+            x[i] = c.day(i);
+            y[i] = c.cases(i);
+        }
+        double a = growth.coefficient("intercept");
+        double r = growth.rate();
+        Curve line = Curve.of("fitted exp(a + r t), r = " + TextTable.number(r) + " per day",
+                t -> Math.exp(a + r * t), first, last, 100);
+        Path png = figures.resolve("growth.png");
+        Charts.logSeries(png, "Daily cases by onset day (log scale)", dayAxis(), "cases per day", x, y, line);
+        List<List<String>> rows = new ArrayList<>();
+        rows.add(row("growth rate r (per day)", growth.rateProfile(), truth("growthRate")));
+        growth.doublingTime().ifPresent(e -> rows.add(row("doubling time (days)", e, truth("doublingTime"))));
+        report.section("Growth rate", "Cases grow (or decline) exponentially at a steady rate over the window "
+                        + "fitted; the fraction of cases that is recorded does not change over it; daily counts "
+                        + "scatter around the trend as Poisson counts (a Pearson dispersion well above 1 says they "
+                        + "scatter more, and the interval is then too narrow).")
+                .paragraph("Log-linear Poisson regression of the daily cases on the day, days " + first + " to "
+                        + last + "; 95% profile-likelihood interval. Pearson dispersion "
+                        + TextTable.number(growth.pearsonDispersion()) + ".")
+                .table(header(), rows)
+                .figure(png, "Daily cases on a log scale with the fitted exponential trend. A straight line on "
+                        + "this scale is steady exponential growth.");
+    }
+
+    private String dayAxis() {
+        return "day" + originNote();
+    }
+
+    private String originNote() {
+        return counts.origin() == null ? "" : " (day 0 = " + counts.origin() + ")";
+    }
+
+    // ---------------------------------------------------------------- reproduction
+
+    private ParametricDelay generationInterval() {
+        DelayFamily fam = DelayFamilies.byName(in.generationFamily());
+        return fam.ofMeanSd(in.generationMean(), in.generationSd());
+    }
+
+    private void reproductionSection() throws IOException {
+        if (growth == null) {
+            throw new EstimationException("no growth rate (see the growth-rate section)");
+        }
+        ParametricDelay g = generationInterval();
+        Estimate rate = growth.rateProfile();
+        if (!(g.laplaceTransform(rate.lower()) < Double.POSITIVE_INFINITY)) {
+            throw new EstimationException("the Euler-Lotka equation has no solution for the lower growth-rate limit "
+                    + rate.lower() + " with this generation interval");
+        }
+        Estimate corrected = ReproductionCommand.reproduction(g, rate, in.generationMeanCi(), in.generationSdCi());
+        ObjectNode o = JsonOutput.object();
+        o.set("reproductionNumber", JsonOutput.estimate(corrected));
+        List<List<String>> rows = new ArrayList<>();
+        rows.add(row("R, Euler-Lotka with the generation interval", corrected, truth("reproductionNumber")));
+        List<Comparison> cmp = new ArrayList<>();
+        String naiveNote = "";
+        if (g instanceof GammaDelay gamma && rate.lower() > -gamma.rate()) {
+            // the same interval as it looks when traced back from cases during growth at rate r
+            // (tilted: Gamma(a, b + r)), wrongly used as the intrinsic one (methods, section 3)
+            ParametricDelay tilted = gamma.tilt(rate.estimate());
+            Estimate naive = ReproductionCommand.reproduction(tilted, rate, in.generationMeanCi(),
+                    in.generationSdCi());
+            o.set("naiveBackwardTraced", JsonOutput.estimate(naive));
+            rows.add(row("R if the interval had been traced back from cases (naive)", naive,
+                    truth("reproductionNumber")));
+            cmp.add(new Comparison("R", naive, corrected));
+            naiveNote = " The naive row shows the error made when the interval was measured by tracing back from "
+                    + "cases during growth (its mean then appears shorter, " + TextTable.number(tilted.mean())
+                    + " instead of " + TextTable.number(g.mean()) + " days) and used as if it were the intrinsic "
+                    + "interval.";
+        }
+        results.set("reproduction", o);
+        HtmlReport.Section s = report.section("Reproduction number", "Steady exponential growth at the estimated "
+                        + "rate; the generation interval (" + g.familyName() + ", mean "
+                        + TextTable.number(in.generationMean()) + " days, sd " + TextTable.number(in.generationSd())
+                        + ") is the intrinsic one, from infection of a case to infection of the people it infects, "
+                        + "and is the same throughout; its uncertainty enters as independent normal errors of its "
+                        + "mean and sd.")
+                .paragraph("R = 1 / E[exp(-r G)] (Euler-Lotka equation, Wallinga and Lipsitch 2007), 95% interval "
+                        + "by the delta method from the growth rate and the generation interval." + naiveNote)
+                .table(header(), rows);
+        if (!cmp.isEmpty()) {
+            Path png = figures.resolve("reproduction-comparison.png");
+            Charts.comparison(png, "Reproduction number: naive versus corrected", "R", cmp,
+                    truthValue("reproductionNumber"));
+            s.figure(png, "Reproduction number from the intrinsic generation interval (corrected) and from the "
+                    + "backward-traced interval used as intrinsic (naive), with 95% intervals"
+                    + (in.truth() != null ? "; dashed line: the true value of the simulation." : "."));
+        }
+    }
+
+    // ---------------------------------------------------------------- renewal
+
+    private void renewalSection() throws IOException {
+        ParametricDelay g = generationInterval();
+        int maxDay = (int) Math.ceil(g.quantile(0.9999)) + 1;
+        InfectivityProfile w = InfectivityProfile.fromMasses(g.discretise(maxDay, Discretisation.DAY_INTERVAL));
+        DailyCounts c = counts.data();
+        int width = 7;
+        if (c.size() < width + 2) {
+            throw new EstimationException("need at least " + (width + 2) + " days of counts for 7-day windows, had "
+                    + c.size());
+        }
+        List<WindowReproduction> all = RenewalEstimator.slidingWindows(c, w, width, GammaPrior.vague(), 0.95);
+        // Start once the windows hold enough cases to inform the estimate (Cori et al. 2013 advise
+        // starting after some cases have accumulated; 12 is common practice).
+        List<WindowReproduction> shown = new ArrayList<>();
+        for (WindowReproduction x : all) {
+            if (x.localCases() >= 12 && x.totalInfectiousness() > 0) {
+                shown.add(x);
+            }
+        }
+        if (shown.size() < 2) {
+            throw new EstimationException("fewer than two 7-day windows with at least 12 local cases");
+        }
+        double[] x = new double[shown.size()];
+        double[] e = new double[x.length];
+        double[] lo = new double[x.length];
+        double[] hi = new double[x.length];
+        ArrayNode a = results.putArray("reproductionOverTime");
+        for (int i = 0; i < x.length; i++) {
+            WindowReproduction win = shown.get(i);
+            x[i] = win.lastDay();
+            e[i] = win.reproductionNumber().estimate();
+            lo[i] = win.reproductionNumber().lower();
+            hi[i] = win.reproductionNumber().upper();
+            ObjectNode o = a.addObject();
+            o.put("firstDay", win.firstDay());
+            o.put("lastDay", win.lastDay());
+            o.put("localCases", win.localCases());
+            o.set("reproductionNumber", JsonOutput.estimate(win.reproductionNumber()));
+        }
+        double truth = truthValue("reproductionNumber");
+        Path png = figures.resolve("reproduction-over-time.png");
+        Charts.band(png, "Reproduction number over 7-day windows (renewal equation)", "last day of the window"
+                        + originNote(), "reproduction number", x, e, lo, hi,
+                Double.isNaN(truth) ? 1.0 : truth, Double.isNaN(truth) ? "R = 1" : "true R = " + TextTable.number(truth));
+        WindowReproduction latest = shown.get(shown.size() - 1);
+        report.section("Reproduction number over time", "Cases by onset day follow the renewal equation with the "
+                        + "generation interval above standing in for the interval between onsets; every case is "
+                        + "local except those in the imported column; the fraction recorded is constant; R is "
+                        + "constant within each 7-day window; prior Gamma(shape 1, scale 5) (Cori et al. 2013).")
+                .paragraph("Latest window (days " + latest.firstDay() + " to " + latest.lastDay() + "): R = "
+                        + Cli.cell(latest.reproductionNumber()) + ", 95% credible interval.")
+                .figure(png, "Posterior mean of R over sliding 7-day windows with its 95% credible band, from the "
+                        + "first window holding at least 12 cases; dashed line: "
+                        + (Double.isNaN(truth) ? "R = 1." : "the true R of the simulation."));
+    }
+
+    // ---------------------------------------------------------------- helpers
+
+    private List<String> header() {
+        return in.truth() == null ? List.of("quantity", "estimate", "95% interval")
+                : List.of("quantity", "estimate", "95% interval", "true value");
+    }
+
+    private List<String> row(String name, Estimate e, String truth) {
+        String interval = TextTable.number(e.lower()) + " to " + TextTable.number(e.upper());
+        return in.truth() == null ? List.of(name, TextTable.number(e.estimate()), interval)
+                : List.of(name, TextTable.number(e.estimate()), interval, truth);
+    }
+
+    private String truth(String path) {
+        double v = truthValue(path);
+        return Double.isNaN(v) ? "" : TextTable.number(v);
+    }
+
+    /** @return the true value at a slash-separated path of the truth JSON, or NaN */
+    double truthValue(String path) {
+        if (in.truth() == null) {
+            return Double.NaN;
+        }
+        JsonNode n = in.truth();
+        for (String p : path.split("/")) {
+            n = n.get(p);
+            if (n == null) {
+                return Double.NaN;
+            }
+        }
+        return n.isNumber() ? n.asDouble() : Double.NaN;
+    }
+
+    List<String> failures() {
+        return List.copyOf(failures);
+    }
+}
