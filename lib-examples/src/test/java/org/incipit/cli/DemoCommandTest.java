@@ -1,0 +1,140 @@
+package org.incipit.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import org.incipit.io.JsonOutput;
+import org.incipit.report.HtmlReport;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/** {@code incipit demo} and {@code incipit analyse}: the report folder and its contents. */
+class DemoCommandTest {
+
+    @TempDir
+    static Path dir;
+
+    static CliRun demo;
+    static Path out;
+
+    @BeforeAll
+    static void runDemoOnce() {
+        out = dir.resolve("demo");
+        demo = CliRun.of("demo", "--out", out.toString(), "--json");
+    }
+
+    @Test
+    void demoWritesTheReportFolder() {
+        assertEquals(0, demo.code(), demo.err());
+        for (String f : new String[] {"report.html", "results.json", "figures/growth.png",
+            "figures/reproduction-comparison.png", "figures/reproduction-over-time.png", "data/counts.csv",
+            "data/truth.json"}) {
+            assertTrue(Files.isRegularFile(out.resolve(f)), f);
+        }
+        assertTrue(demo.err().contains("incipit: [1/"), "progress on stderr: " + demo.err());
+    }
+
+    @Test
+    void demoJsonOnStdoutIsTheResultsFile() throws IOException {
+        JsonNode stdout = JsonOutput.read(demo.out());
+        JsonNode file = JsonOutput.read(Files.readString(out.resolve("results.json")));
+        assertEquals(file, stdout);
+        assertEquals(0, file.get("failures").size(), file.get("failures").toString());
+        assertEquals(HtmlReport.CAUTION, file.get("caution").asText());
+        assertTrue(file.get("truth").get("place").asText().contains("invented"));
+    }
+
+    @Test
+    void demoEstimatesCoverTheTruthOfTheShippedScenario() throws IOException {
+        JsonNode j = JsonOutput.read(Files.readString(out.resolve("results.json")));
+        JsonNode t = j.get("truth");
+        assertCovers(j.at("/growth/growthRate"), t.get("growthRate").asDouble(), "growth rate");
+        assertCovers(j.at("/reproduction/reproductionNumber"), t.get("reproductionNumber").asDouble(), "R");
+        JsonNode naive = j.at("/reproduction/naiveBackwardTraced");
+        assertTrue(naive.get("estimate").asDouble() < j.at("/reproduction/reproductionNumber/estimate").asDouble(),
+                "backward-traced interval used as intrinsic gives a smaller R (methods, section 3)");
+        assertTrue(j.get("reproductionOverTime").size() > 10);
+    }
+
+    static void assertCovers(JsonNode e, double truth, String what) {
+        assertTrue(e.get("lower").asDouble() <= truth && truth <= e.get("upper").asDouble(),
+                what + ": " + e + " should contain " + truth);
+    }
+
+    @Test
+    void reportIsSelfContainedWithCautionAssumptionsAndFigures() throws IOException {
+        String html = Files.readString(out.resolve("report.html"), StandardCharsets.UTF_8);
+        assertTrue(html.contains("class=\"caution\""), "caution");
+        assertTrue(html.contains("inform but do not replace the judgement of the responsible public-health "
+                + "authority"), "caution text");
+        assertTrue(html.contains("invented"), "scenario is said to be invented");
+        Matcher m = Pattern.compile("<img src=\"data:image/png;base64,").matcher(html);
+        int figures = 0;
+        while (m.find()) {
+            figures++;
+        }
+        assertEquals(3, figures, "every figure embedded");
+        int sections = html.split("<h2>", -1).length - 1;
+        int assumptions = html.split("class=\"assumptions\"", -1).length - 1;
+        assertEquals(sections, assumptions, "every section states its assumptions");
+        assertTrue(html.contains("<th>true value</th>"), "true values beside the estimates");
+        assertTrue(!html.contains("src=\"http"), "no external resources");
+    }
+
+    @Test
+    void demoTableSummarises() {
+        CliRun r = CliRun.of("demo", "--out", dir.resolve("again").toString());
+        assertEquals(0, r.code(), r.err());
+        assertTrue(r.out().contains("report.html"), r.out());
+        assertTrue(r.out().contains("growth rate (per day)"), r.out());
+        assertTrue(r.out().contains("reproduction number"), r.out());
+    }
+
+    @Test
+    void analyseOnCountsOnlyLeavesOutTheReproductionNumber() {
+        Path o = dir.resolve("analyse");
+        CliRun r = CliRun.of("analyse", "--counts", out.resolve("data/counts.csv").toString(), "--out", o.toString(),
+                "--json");
+        assertEquals(0, r.code(), r.err());
+        JsonNode j = JsonOutput.read(r.out());
+        assertTrue(j.get("growth").get("growthRate").isObject());
+        assertTrue(j.get("reproduction").isNull());
+        assertTrue(!j.has("truth"));
+        assertTrue(Files.isRegularFile(o.resolve("report.html")));
+    }
+
+    @Test
+    void analyseWithTheGenerationIntervalGivesR() {
+        Path o = dir.resolve("analyse-r");
+        CliRun r = CliRun.of("analyse", "--counts", out.resolve("data/counts.csv").toString(), "--out", o.toString(),
+                "--generation-mean", "6", "--generation-sd", "3", "--generation-mean-ci", "5,7", "--json");
+        assertEquals(0, r.code(), r.err());
+        JsonNode j = JsonOutput.read(r.out());
+        assertTrue(j.at("/reproduction/reproductionNumber/estimate").asDouble() > 1);
+    }
+
+    @Test
+    void analyseBadUsage() throws IOException {
+        Path o = dir.resolve("bad");
+        CliRun r = CliRun.of("analyse", "--counts", out.resolve("data/counts.csv").toString(), "--out", o.toString(),
+                "--generation-mean", "6");
+        assertEquals(ExitCode.BAD_INPUT, r.code());
+        assertEquals("incipit: give both --generation-mean and --generation-sd, or neither" + CliRun.NL, r.err());
+        r = CliRun.of("analyse", "--out", o.toString());
+        assertEquals(ExitCode.BAD_INPUT, r.code());
+        assertTrue(r.err().startsWith("incipit: Missing required option: '--counts=FILE'"), r.err());
+        Path bad = dir.resolve("bad.csv");
+        Files.writeString(bad, "day,cases\n0,1\n2,3\n");
+        r = CliRun.of("analyse", "--counts", bad.toString(), "--out", o.toString());
+        assertEquals(ExitCode.BAD_INPUT, r.code());
+        assertTrue(r.err().startsWith("incipit: " + bad + ":3:1: day '2' does not follow day '0'"), r.err());
+    }
+}
