@@ -14,10 +14,9 @@ import picocli.CommandLine.Option;
  * own files. Every estimator whose file is given runs; the others are left out of the report.
  */
 @Command(name = "analyse",
-        aliases = "analyze",
         mixinStandardHelpOptions = true,
-        description = {"Run the whole analysis on your own files and write a report folder",
-            "(report.html, results.json, figures/).", ""},
+        description = {"Run the whole analysis on your own files (same report as demo).",
+            "Writes a report folder (report.html, results.json, figures/).", ""},
         footer = {"",
             "Only --counts is required; each other file adds its sections. Without",
             "--generation-mean and --generation-sd there is no reproduction number.",
@@ -49,10 +48,10 @@ public final class AnalyseCommand extends AbstractCommand {
     @Option(names = "--generation-sd", paramLabel = "DAYS", description = "Generation interval sd.")
     Double generationSd;
 
-    @Option(names = "--generation-mean-ci", paramLabel = "LO,HI", description = "95% interval of the mean.")
+    @Option(names = "--generation-mean-ci", paramLabel = "LO,HI", description = "95%% interval of the mean.")
     String generationMeanCi;
 
-    @Option(names = "--generation-sd-ci", paramLabel = "LO,HI", description = "95% interval of the sd.")
+    @Option(names = "--generation-sd-ci", paramLabel = "LO,HI", description = "95%% interval of the sd.")
     String generationSdCi;
 
     @Option(names = "--from", paramLabel = "DAY", description = "First day of the growth window.")

@@ -20,8 +20,8 @@ import picocli.CommandLine.Option;
  */
 @Command(name = "demo",
         mixinStandardHelpOptions = true,
-        description = {"Run the whole analysis on the shipped simulated scenario and write",
-            "a report folder (report.html, results.json, figures/, data/).", ""},
+        description = {"Run the whole analysis on the shipped simulated scenario.",
+            "Writes a report folder (report.html, results.json, figures/, data/).", ""},
         footer = {"",
             "The scenario (" + Scenario.PATHOGEN + " in " + Scenario.PLACE + ") is invented and simulated",
             "with a fixed seed; its true values are in data/truth.json and beside",

@@ -21,8 +21,8 @@ import picocli.CommandLine.Option;
  */
 @Command(name = "reproduction",
         mixinStandardHelpOptions = true,
-        description = {"Reproduction number from a growth rate and a generation interval",
-            "(Euler-Lotka equation).", ""},
+        description = {"Reproduction number from a growth rate (Euler-Lotka equation).",
+            "The generation interval is given by family, mean and sd.", ""},
         footer = {"",
             "R = 1 / E[exp(-r G)] for the generation interval G (Wallinga and Lipsitch",
             "2007). Interval: delta method on log R, from --growth-rate-ci and, when",
