@@ -1,0 +1,199 @@
+package org.incipit.core.estimate.ambiguous;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.function.ToDoubleFunction;
+
+import org.incipit.core.EstimationException;
+import org.incipit.core.inference.Estimate;
+import org.incipit.core.inference.ModelComparison;
+import org.incipit.core.likelihood.LogLikelihood;
+import org.incipit.core.likelihood.Maximiser;
+import org.incipit.core.likelihood.MaximumLikelihoodFit;
+import org.incipit.core.likelihood.Optimum;
+import org.incipit.core.likelihood.ParameterTransform;
+import org.incipit.core.likelihood.Parameterisation;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
+
+/**
+ * Maximum likelihood for ambiguous-start intervals: a gamma, Weibull or lognormal H together
+ * with the transmission probabilities, under a chosen {@link ExposureHistory}
+ * (docs/methods.md, section 1). Stateless; thread-safe.
+ *
+ * <p><b>Likelihood.</b> log L = &Sigma;_i [log &Sigma;_j p_(k_j) &Pi;_(l&lt;j)(1 &minus; p_(k_l))
+ * h(d_ij) &minus; log P(case_i)], see {@link ExposureHistory} for P(case). Maximised on
+ * (log shape, log rate | log shape, log scale | meanLog, log sdLog, logit p_1..p_K) by damped
+ * Newton on the analytic Hessian (the engine's {@link Maximiser#newton()}), from a start built
+ * from the moments of the earliest-candidate durations (mean scaled by 0.7, since the earliest
+ * candidate overstates the interval; p from the mean number of candidates); if that start does
+ * not converge, from two more (scales 1.0 and 1.3, p = 0.5).
+ *
+ * <p><b>Intervals</b>: Wald on the estimation scale; delta method on the log scale for the
+ * mean, sd and quantiles of H (engine {@link MaximumLikelihoodFit#delta}); profile intervals
+ * through {@link AmbiguousStartFit#fit()}.
+ */
+public final class AmbiguousStartEstimator {
+
+    private static final Logger LOG = LoggerFactory.getLogger(AmbiguousStartEstimator.class);
+
+    private AmbiguousStartEstimator() {
+    }
+
+    /**
+     * Options of the maximum-likelihood fit.
+     *
+     * @param level          interval coverage in (0, 1)
+     * @param quantileLevels probabilities in (0, 1) of the quantiles of H to report (copied)
+     */
+    public record Options(double level, List<Double> quantileLevels) {
+        /** @throws IllegalArgumentException if level or a quantile probability is outside (0, 1) */
+        public Options {
+            if (!(level > 0 && level < 1)) {
+                throw new IllegalArgumentException("level must be in (0, 1), was " + level);
+            }
+            quantileLevels = List.copyOf(quantileLevels);
+            for (double p : quantileLevels) {
+                if (!(p > 0 && p < 1)) {
+                    throw new IllegalArgumentException("quantile levels must be in (0, 1), one was " + p);
+                }
+            }
+        }
+
+        /** @return level 0.95, quantiles at 0.5 and 0.95 */
+        public static Options defaults() {
+            return new Options(0.95, List.of(0.5, 0.95));
+        }
+    }
+
+    // -------------------------------------------------------------------------------------
+    // package-private core on prepared data
+
+    static AmbiguousStartFit fit(Prepared data, Family family, ExposureHistory history, Options options,
+                                 List<String> categoryLabels) {
+        if (data.categories < 1) {
+            throw new IllegalArgumentException("data must have >= 1 transmission category");
+        }
+        AmbiguousLikelihood ll = new AmbiguousLikelihood(data, family, history);
+        int k = data.categories;
+        List<String> names = new ArrayList<>(List.of(family.name1, family.name2));
+        List<ParameterTransform> transforms = new ArrayList<>(family.transforms());
+        List<String> labels = categoryLabels != null ? categoryLabels : defaultLabels(k);
+        for (int c = 0; c < k; c++) {
+            names.add(k == 1 ? "p" : "p[" + labels.get(c) + "]");
+            transforms.add(ParameterTransform.logit());
+        }
+        Parameterisation param = Parameterisation.of(names, transforms);
+        double[] d1 = data.earliest();
+        double meanCand = (double) data.candidates() / data.n;
+        double p0 = Math.max(0.05, Math.min(0.95, 1 / meanCand));
+        Optimum best = maximise(ll, family, d1, k, new double[] {0.7}, p0);
+        if (!best.converged()) {
+            Optimum more = maximise(ll, family, d1, k, new double[] {1.0, 1.3}, 0.5);
+            if (more.converged() || more.value() > best.value()) {
+                best = more;
+            }
+        }
+        MaximumLikelihoodFit fit = MaximumLikelihoodFit.of(param, ll, Maximiser.newton(), best, data.n);
+        LOG.debug("{} fit under {}: {}", family.label, history.label(), fit);
+        double[] nat = fit.naturalEstimate();
+        List<Estimate> params = new ArrayList<>();
+        for (int i = 0; i < 2; i++) {
+            params.add(fit.converged() ? fit.wald(i, options.level()) : none(nat[i], transforms.get(i), options.level()));
+        }
+        List<Estimate> ps = new ArrayList<>();
+        for (int c = 0; c < k; c++) {
+            ps.add(fit.converged() ? fit.wald(2 + c, options.level())
+                    : none(nat[2 + c], ParameterTransform.logit(), options.level()));
+        }
+        Estimate mean = derived(fit, x -> family.mean(x[0], x[1]), nat, options.level());
+        Estimate sd = derived(fit, x -> family.sd(x[0], x[1]), nat, options.level());
+        List<Estimate> qs = new ArrayList<>();
+        for (double pr : options.quantileLevels()) {
+            qs.add(derived(fit, x -> family.quantile(x[0], x[1], pr), nat, options.level()));
+        }
+        return new AmbiguousStartFit(family.label, history, List.of(family.name1, family.name2), params, labels, ps,
+                mean, sd, options.quantileLevels(), qs, fit.logLikelihood(), fit.aic(), data.n, data.candidates(),
+                fit.converged(), fit.message(), fit);
+    }
+
+    static List<String> defaultLabels(int k) {
+        List<String> l = new ArrayList<>();
+        for (int c = 0; c < k; c++) {
+            l.add(Integer.toString(c));
+        }
+        return l;
+    }
+
+    private static Optimum maximise(LogLikelihood ll, Family family, double[] d1, int k, double[] scales, double p0) {
+        double mean = 0;
+        for (double d : d1) {
+            mean += d;
+        }
+        mean /= d1.length;
+        double var = 0;
+        for (double d : d1) {
+            var += (d - mean) * (d - mean);
+        }
+        double sd = Math.sqrt(var / Math.max(1, d1.length - 1));
+        double cv = Math.max(0.2, Math.min(3, sd / mean));
+        if (!(cv > 0)) {
+            cv = 0.5;
+        }
+        List<double[]> starts = new ArrayList<>();
+        for (double s : scales) {
+            double[] nat = family.fromMeanSd(mean * s, cv * mean * s);
+            double[] u = family.unconstrained(nat[0], nat[1]);
+            double[] start = new double[2 + k];
+            start[0] = u[0];
+            start[1] = u[1];
+            for (int c = 0; c < k; c++) {
+                start[2 + c] = Math.log(p0 / (1 - p0));
+            }
+            starts.add(start);
+        }
+        Maximiser newton = Maximiser.newton();
+        return starts.size() == 1 ? newton.maximise(ll, starts.get(0)) : newton.maximise(ll, starts);
+    }
+
+    /** Delta-method interval on the log scale, or the uninformative interval. */
+    private static Estimate derived(MaximumLikelihoodFit fit, ToDoubleFunction<double[]> f, double[] nat, double level) {
+        double v = f.applyAsDouble(nat);
+        if (!Double.isFinite(v)) {
+            throw new EstimationException("derived quantity of H is not finite at the estimate " + java.util.Arrays.toString(nat));
+        }
+        if (!fit.converged()) {
+            return new Estimate(v, 0, Double.POSITIVE_INFINITY, level, AmbiguousStartFit.NO_INTERVAL);
+        }
+        return fit.delta(f, level, ParameterTransform.log());
+    }
+
+    private static Estimate none(double v, ParameterTransform t, double level) {
+        return new Estimate(v, Math.min(v, t.lowerBound()), Math.max(v, t.upperBound()), level,
+                AmbiguousStartFit.NO_INTERVAL);
+    }
+
+    /**
+     * Plain maximum-likelihood fit of the family to one duration per case (no p). Used by the
+     * naive rules.
+     */
+    static MaximumLikelihoodFit plainFit(double[] durations, Family family) {
+        Prepared data = Prepared.plain(durations);
+        AmbiguousLikelihood ll = new AmbiguousLikelihood(data, family, null);
+        Parameterisation param = Parameterisation.of(List.of(family.name1, family.name2), family.transforms());
+        Optimum o = maximise(ll, family, durations, 0, new double[] {1.0}, 0.5);
+        if (!o.converged()) {
+            o = maximise(ll, family, durations, 0, new double[] {0.7, 1.3}, 0.5);
+        }
+        return MaximumLikelihoodFit.of(param, ll, Maximiser.newton(), o, data.n);
+    }
+
+    /** Candidates for model comparison, one per converged fit. */
+    static ModelComparison compare(List<AmbiguousStartFit> fits, ModelComparison.Criterion criterion) {
+        List<ModelComparison.Candidate> c = new ArrayList<>();
+        for (AmbiguousStartFit f : fits) {
+            c.add(f.fit().candidate(f.family()));
+        }
+        return ModelComparison.of(criterion, c);
+    }
+}
