@@ -49,8 +49,15 @@ final class AmbiguousLikelihood implements LogLikelihood {
     private final int[] groupMult;
     private final double poissonMean; // > 0 for poisson total
     private final int split;       // case index of the split, or n
+    private final boolean general; // force the general per-term pass (tests)
 
     AmbiguousLikelihood(Prepared data, Family family, ExposureHistory history) {
+        this(data, family, history, false, false);
+    }
+
+    /** @param general use the per-term pass for every family; @param noSplit never split (tests) */
+    AmbiguousLikelihood(Prepared data, Family family, ExposureHistory history, boolean general, boolean noSplit) {
+        this.general = general;
         this.data = data;
         this.family = family;
         this.k = data.categories;
@@ -109,7 +116,7 @@ final class AmbiguousLikelihood implements LogLikelihood {
         this.groupCounts = gc;
         this.groupMult = gm;
         this.poissonMean = pm;
-        this.split = data.candidates() >= SPLIT ? splitPoint(data) : data.n;
+        this.split = !noSplit && data.candidates() >= SPLIT ? splitPoint(data) : data.n;
     }
 
     private static int splitPoint(Prepared d) {
@@ -160,7 +167,7 @@ final class AmbiguousLikelihood implements LogLikelihood {
 
     /** Sums over cases [from, to) in the coordinates (beta1, beta2 | phi1, phi2 for Weibull, logit p). */
     private Acc pass(double[] theta, int from, int to, boolean hs) {
-        if (family.linear() && k <= 1) {
+        if (!general && family.linear() && k <= 1) {
             return linearPass(theta, from, to, hs);
         }
         return generalPass(theta, from, to, hs);
