@@ -188,6 +188,24 @@ public final class AmbiguousStartEstimator {
         return MaximumLikelihoodFit.of(param, ll, Maximiser.newton(), o, data.n);
     }
 
+    static NaiveFit naive(Prepared data, Family family, NaiveRule rule, double level) {
+        double[] d = rule.durations(data);
+        if (d.length < 2) {
+            throw new EstimationException("naive rule " + rule + " keeps " + d.length
+                    + " cases; a two-parameter family needs at least 2");
+        }
+        MaximumLikelihoodFit fit = plainFit(d, family);
+        if (!fit.converged()) {
+            throw new EstimationException("plain " + family.label + " fit for rule " + rule + " did not converge after "
+                    + fit.optimum().iterations() + " iterations: " + fit.message());
+        }
+        Estimate mean = fit.delta(x -> family.mean(x[0], x[1]), level, ParameterTransform.log());
+        Estimate sd = fit.delta(x -> family.sd(x[0], x[1]), level, ParameterTransform.log());
+        return new NaiveFit(rule, family.label, List.of(family.name1, family.name2),
+                List.of(fit.wald(0, level), fit.wald(1, level)), mean, sd, fit.logLikelihood(), fit.aic(), d.length,
+                true);
+    }
+
     /** Candidates for model comparison, one per converged fit. */
     static ModelComparison compare(List<AmbiguousStartFit> fits, ModelComparison.Criterion criterion) {
         List<ModelComparison.Candidate> c = new ArrayList<>();
