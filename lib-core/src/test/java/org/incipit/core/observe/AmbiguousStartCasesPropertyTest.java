@@ -1,0 +1,87 @@
+package org.incipit.core.observe;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.stream.Stream;
+import org.apache.commons.rng.UniformRandomProvider;
+import org.apache.commons.rng.simple.RandomSource;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.MethodSource;
+
+/**
+ * Seeded random data sets (100, bounded): candidates added interleaved across cases come out
+ * grouped by case in order of first appearance, sorted by start within each case, with every
+ * (start, category) pair kept.
+ */
+class AmbiguousStartCasesPropertyTest {
+
+    private static final long SEED = 20240501L;
+
+    static Stream<Long> seeds() {
+        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(SEED);
+        return Stream.generate(rng::nextLong).limit(100);
+    }
+
+    @ParameterizedTest
+    @MethodSource("seeds")
+    void groupsSortsAndKeepsEveryCandidate(long seed) {
+        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
+        int cases = 1 + rng.nextInt(8);
+        String[] categories = {"home", "work", "school"};
+        record Row(String id, double end, double start, String category) {
+        }
+        List<Row> rows = new ArrayList<>();
+        Map<String, Double> ends = new LinkedHashMap<>();
+        for (int c = 0; c < cases; c++) {
+            double end = 30 * rng.nextDouble();
+            ends.put("c" + c, end);
+            int m = 1 + rng.nextInt(5);
+            for (int k = 0; k < m; k++) {
+                // whole days make ties likely
+                double start = rng.nextBoolean() ? Math.floor(end * rng.nextDouble()) : end * rng.nextDouble();
+                rows.add(new Row("c" + c, end, start, categories[rng.nextInt(3)]));
+            }
+        }
+        Collections.shuffle(rows, new java.util.Random(seed));
+        AmbiguousStartCases.Builder b = AmbiguousStartCases.builder();
+        List<String> firstSeen = new ArrayList<>();
+        for (Row r : rows) {
+            b.addCandidate(r.id(), r.end(), r.start(), r.category(), AmbiguousStartCases.UNKNOWN_TOTAL);
+            if (!firstSeen.contains(r.id())) {
+                firstSeen.add(r.id());
+            }
+        }
+        AmbiguousStartCases a = b.build();
+        assertEquals(firstSeen, a.ids());
+        assertEquals(rows.size(), a.candidateCount());
+        assertEquals(0, a.offset(0));
+        assertEquals(rows.size(), a.offset(a.caseCount()));
+        for (int i = 0; i < a.caseCount(); i++) {
+            String id = a.id(i);
+            assertEquals(ends.get(id), a.end(i));
+            List<String> expected = new ArrayList<>();
+            for (Row r : rows) {
+                if (r.id().equals(id)) {
+                    expected.add(r.start() + "/" + r.category());
+                }
+            }
+            List<String> actual = new ArrayList<>();
+            for (int j = a.offset(i); j < a.offset(i + 1); j++) {
+                if (j > a.offset(i)) {
+                    assertTrue(a.start(j - 1) <= a.start(j), "sorted within case");
+                }
+                assertTrue(a.start(j) <= a.end(i));
+                actual.add(a.start(j) + "/" + a.categoryNames().get(a.categoryCode(j)));
+            }
+            Collections.sort(expected);
+            Collections.sort(actual);
+            assertEquals(expected, actual);
+        }
+    }
+}

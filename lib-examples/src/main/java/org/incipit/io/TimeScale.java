@@ -1,0 +1,157 @@
+package org.incipit.io;
+
+import java.time.LocalDate;
+import java.time.format.DateTimeParseException;
+import java.time.temporal.ChronoUnit;
+import java.util.List;
+import java.util.regex.Pattern;
+
+/** Decides whether a file's time columns hold day numbers or dates, and parses them. */
+final class TimeScale {
+
+    static final Pattern NUMBER = Pattern.compile("[-+]?(\\d+(\\.\\d*)?|\\.\\d+)([eE][-+]?\\d+)?");
+    static final Pattern DATE = Pattern.compile("\\d{4}-\\d{2}-\\d{2}");
+
+    final boolean dates;
+    final LocalDate origin; // null for day numbers without a given origin
+
+    private TimeScale(boolean dates, LocalDate origin) {
+        this.dates = dates;
+        this.origin = origin;
+    }
+
+    /**
+     * Scans the time columns. Faults of the file (a column mixing kinds, columns of different
+     * kinds) raise an {@link InputException}; unparsable values are left to {@link #parse}.
+     */
+    static TimeScale of(CsvTable table, List<String> timeColumns, ReadOptions options) {
+        Boolean fileDates = null;
+        String firstColumn = null;
+        int firstLine = 0;
+        LocalDate earliest = null;
+        for (String column : timeColumns) {
+            if (!table.has(column)) {
+                continue;
+            }
+            Boolean columnDates = null;
+            int columnLine = 0;
+            for (CsvTable.Row row : table.rows) {
+                if (row.fault() != null) {
+                    continue;
+                }
+                String v = table.value(row, column);
+                boolean isDate = DATE.matcher(v).matches();
+                boolean isNumber = NUMBER.matcher(v).matches();
+                if (!isDate && !isNumber) {
+                    continue;
+                }
+                if (columnDates == null) {
+                    columnDates = isDate;
+                    columnLine = row.line();
+                    if (fileDates == null) {
+                        fileDates = isDate;
+                        firstColumn = column;
+                        firstLine = row.line();
+                    } else if (fileDates != isDate) {
+                        throw new InputException(table.file, row.line(), table.number(column),
+                                "column '" + column + "' holds " + kind(isDate) + " but column '"
+                                        + firstColumn + "' holds " + kind(fileDates) + " (line " + firstLine
+                                        + "); use one kind for all time columns");
+                    }
+                } else if (columnDates != isDate) {
+                    throw new InputException(table.file, row.line(), table.number(column),
+                            "column '" + column + "' mixes day numbers and dates: line " + columnLine
+                                    + " has " + kind1(columnDates) + ", this line has " + kind1(isDate));
+                }
+                if (isDate) {
+                    try {
+                        LocalDate d = LocalDate.parse(v);
+                        if (earliest == null || d.isBefore(earliest)) {
+                            earliest = d;
+                        }
+                    } catch (DateTimeParseException e) {
+                        // reported as a row fault by parse()
+                    }
+                }
+            }
+        }
+        boolean dates = Boolean.TRUE.equals(fileDates);
+        LocalDate origin = options.origin() != null ? options.origin() : (dates ? earliest : null);
+        return new TimeScale(dates, origin);
+    }
+
+    private static String kind(boolean dates) {
+        return dates ? "dates" : "day numbers";
+    }
+
+    private static String kind1(boolean dates) {
+        return dates ? "a date" : "a day number";
+    }
+
+    /** @return the time in days; a {@link RowFault} if the value is empty or unreadable */
+    double parse(String column, String text) {
+        if (text.isEmpty()) {
+            throw new RowFault(column, "column '" + column + "': value is missing");
+        }
+        if (dates) {
+            if (!DATE.matcher(text).matches()) {
+                throw new RowFault(column, "column '" + column + "': cannot read '" + text
+                        + "' as a date (yyyy-MM-dd)");
+            }
+            try {
+                return ChronoUnit.DAYS.between(origin, LocalDate.parse(text));
+            } catch (DateTimeParseException e) {
+                throw new RowFault(column, "column '" + column + "': '" + text + "' is not a valid date");
+            }
+        }
+        if (!NUMBER.matcher(text).matches()) {
+            throw new RowFault(column, "column '" + column + "': cannot read '" + text
+                    + "' as a day number or a date (yyyy-MM-dd)");
+        }
+        double x = Double.parseDouble(text);
+        if (!Double.isFinite(x)) {
+            throw new RowFault(column, "column '" + column + "': day number '" + text + "' is out of range");
+        }
+        return x;
+    }
+
+    /** Parses an integer day (a whole day number or a date). */
+    int parseDay(String column, String text) {
+        double x = parse(column, text);
+        if (x != Math.rint(x) || Math.abs(x) > Integer.MAX_VALUE / 2) {
+            throw new RowFault(column, "column '" + column + "': day '" + text + "' is not a whole day number");
+        }
+        return (int) x;
+    }
+
+    /**
+     * Parses a time given outside the file (e.g. a cut-off) on this scale.
+     *
+     * @throws IllegalArgumentException with a reason if it cannot be
+     */
+    double parseExternal(String what, String text) {
+        String t = text.trim();
+        if (DATE.matcher(t).matches()) {
+            if (origin == null) {
+                throw new IllegalArgumentException(what + " '" + text
+                        + "' is a date, but the file's times are day numbers without an origin date");
+            }
+            try {
+                return ChronoUnit.DAYS.between(origin, LocalDate.parse(t));
+            } catch (DateTimeParseException e) {
+                throw new IllegalArgumentException(what + " '" + text + "' is not a valid date");
+            }
+        }
+        if (NUMBER.matcher(t).matches()) {
+            if (dates) {
+                throw new IllegalArgumentException(what + " '" + text
+                        + "' is a day number, but the file's times are dates; give it as a date (yyyy-MM-dd)");
+            }
+            double x = Double.parseDouble(t);
+            if (Double.isFinite(x)) {
+                return x;
+            }
+        }
+        throw new IllegalArgumentException(what + " '" + text + "' is neither a day number nor a date (yyyy-MM-dd)");
+    }
+}
