@@ -96,6 +96,10 @@ final class AmbiguousLikelihood implements LogLikelihood {
             }
             Map<Integer, Integer> mult = new LinkedHashMap<>();
             for (int i = 0; i < data.n; i++) {
+                if (data.total[i] == Prepared.UNKNOWN) {
+                    throw new IllegalArgumentException("the known-total exposure history needs the total exposure count"
+                            + " of every case; case " + data.caseName(i) + " has none");
+                }
                 mult.merge(data.total[i], 1, Integer::sum);
             }
             gc = new int[mult.size()];

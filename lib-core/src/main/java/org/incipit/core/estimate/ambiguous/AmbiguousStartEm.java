@@ -3,11 +3,13 @@ package org.incipit.core.estimate.ambiguous;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Executor;
+import java.util.concurrent.ForkJoinPool;
 
 import org.incipit.core.EstimationException;
 import org.incipit.core.inference.Bootstrap;
 import org.incipit.core.inference.BootstrapResult;
 import org.incipit.core.inference.Estimate;
+import org.incipit.core.observe.AmbiguousStartCases;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 
@@ -77,6 +79,30 @@ public final class AmbiguousStartEm {
         public static Options defaults(long seed) {
             return new Options(1.0, 1e-10, 20_000, 0.95, 200, seed);
         }
+    }
+
+    /**
+     * @param cases   the cases
+     * @param options grid, convergence, level, replicates and seed
+     * @return the grid estimate with bootstrap intervals
+     * @throws EstimationException if EM does not converge within the iteration limit
+     */
+    public static GridFit fit(AmbiguousStartCases cases, Options options) {
+        return fit(cases, options, ForkJoinPool.commonPool());
+    }
+
+    /**
+     * @param cases    the cases
+     * @param options  grid, convergence, level, replicates and seed
+     * @param executor where bootstrap replicates run (results do not depend on it)
+     * @return as {@link #fit(AmbiguousStartCases, Options)}
+     */
+    public static GridFit fit(AmbiguousStartCases cases, Options options, Executor executor) {
+        if (cases == null || options == null || executor == null) {
+            throw new IllegalArgumentException("cases, options and executor must not be null");
+        }
+        return fit(Prepared.from(cases), options, cases.hasCategories() ? cases.categoryNames() : List.of("all"),
+                executor);
     }
 
     /** Result of one EM run. */

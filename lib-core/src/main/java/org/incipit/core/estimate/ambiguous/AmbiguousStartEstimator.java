@@ -13,6 +13,8 @@ import org.incipit.core.likelihood.MaximumLikelihoodFit;
 import org.incipit.core.likelihood.Optimum;
 import org.incipit.core.likelihood.ParameterTransform;
 import org.incipit.core.likelihood.Parameterisation;
+import org.incipit.core.observe.AmbiguousStartCases;
+import org.incipit.distributions.DelayFamily;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 
@@ -63,6 +65,103 @@ public final class AmbiguousStartEstimator {
         /** @return level 0.95, quantiles at 0.5 and 0.95 */
         public static Options defaults() {
             return new Options(0.95, List.of(0.5, 0.95));
+        }
+    }
+
+    /**
+     * Fits with default options ({@link Options#defaults()}).
+     *
+     * @param cases   the cases
+     * @param family  gamma, Weibull or lognormal (by {@link DelayFamily#name()})
+     * @param history the exposure-history model (see {@link ExposureHistory}); no default
+     * @return the fit; check {@link AmbiguousStartFit#converged()}
+     * @throws IllegalArgumentException if the family is not one of the three, a case has no
+     *                                  candidate before its end, or the history does not fit the
+     *                                  data (known total without totals; categories with a
+     *                                  known or Poisson total)
+     */
+    public static AmbiguousStartFit fit(AmbiguousStartCases cases, DelayFamily family, ExposureHistory history) {
+        return fit(cases, family, history, Options.defaults());
+    }
+
+    /**
+     * @param cases   the cases
+     * @param family  gamma, Weibull or lognormal
+     * @param history the exposure-history model
+     * @param options level and quantiles
+     * @return the fit; check {@link AmbiguousStartFit#converged()}
+     * @throws IllegalArgumentException as {@link #fit(AmbiguousStartCases, DelayFamily, ExposureHistory)}
+     */
+    public static AmbiguousStartFit fit(AmbiguousStartCases cases, DelayFamily family, ExposureHistory history,
+                                        Options options) {
+        requireNonNull(cases, family, history, options);
+        return fit(Prepared.from(cases), Family.byName(family.name()), history, options,
+                cases.hasCategories() ? cases.categoryNames() : List.of("all"));
+    }
+
+    /**
+     * Fits each family under the same history and ranks them by the criterion (AIC, AICc or BIC;
+     * n = number of cases). Fits that did not converge are left out of the ranking (their
+     * log-likelihood is not a maximum) and listed in {@link Comparison#fits()} with their status.
+     *
+     * @param cases     the cases
+     * @param families  one or more of gamma, Weibull, lognormal
+     * @param history   the exposure-history model
+     * @param criterion the information criterion
+     * @param options   level and quantiles
+     * @return every fit, and the ranking of the converged ones
+     * @throws EstimationException if no family converged
+     */
+    public static Comparison compare(AmbiguousStartCases cases, List<? extends DelayFamily> families,
+                                     ExposureHistory history, ModelComparison.Criterion criterion, Options options) {
+        requireNonNull(cases, families, history, options);
+        List<AmbiguousStartFit> fits = new ArrayList<>();
+        for (DelayFamily f : families) {
+            fits.add(fit(cases, f, history, options));
+        }
+        return new Comparison(fits, compare(fits, criterion));
+    }
+
+    /**
+     * Fits of several families and their ranking.
+     *
+     * @param fits    every fit, in the order of the families
+     * @param ranking ranking of the converged fits
+     */
+    public record Comparison(List<AmbiguousStartFit> fits, ModelComparison ranking) {
+        /** Copies the list. */
+        public Comparison {
+            fits = List.copyOf(fits);
+            if (ranking == null) {
+                throw new IllegalArgumentException("ranking must not be null");
+            }
+        }
+    }
+
+    /**
+     * A naive rule followed by a plain maximum-likelihood fit of the family (no p), for showing
+     * the bias of the rule next to {@link #fit}.
+     *
+     * @param cases  the cases
+     * @param family gamma, Weibull or lognormal
+     * @param rule   which start to take
+     * @param level  interval coverage in (0, 1)
+     * @return the fit
+     * @throws EstimationException if fewer than 2 cases remain or the fit does not converge
+     */
+    public static NaiveFit naive(AmbiguousStartCases cases, DelayFamily family, NaiveRule rule, double level) {
+        requireNonNull(cases, family, rule, level);
+        if (!(level > 0 && level < 1)) {
+            throw new IllegalArgumentException("level must be in (0, 1), was " + level);
+        }
+        return naive(Prepared.from(cases), Family.byName(family.name()), rule, level);
+    }
+
+    private static void requireNonNull(Object... args) {
+        for (Object a : args) {
+            if (a == null) {
+                throw new IllegalArgumentException("arguments must not be null");
+            }
         }
     }
 
@@ -210,7 +309,12 @@ public final class AmbiguousStartEstimator {
     static ModelComparison compare(List<AmbiguousStartFit> fits, ModelComparison.Criterion criterion) {
         List<ModelComparison.Candidate> c = new ArrayList<>();
         for (AmbiguousStartFit f : fits) {
-            c.add(f.fit().candidate(f.family()));
+            if (f.converged()) {
+                c.add(f.fit().candidate(f.family()));
+            }
+        }
+        if (c.isEmpty()) {
+            throw new EstimationException("no family converged: " + fits.stream().map(AmbiguousStartFit::message).toList());
         }
         return ModelComparison.of(criterion, c);
     }

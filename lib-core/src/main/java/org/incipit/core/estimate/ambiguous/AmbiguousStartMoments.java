@@ -7,6 +7,7 @@ import org.incipit.core.EstimationException;
 import org.incipit.core.inference.Bootstrap;
 import org.incipit.core.inference.BootstrapResult;
 import org.incipit.core.inference.Estimate;
+import org.incipit.core.observe.AmbiguousStartCases;
 
 /**
  * Moment estimator of the mean and variance of H, the transmission probability p and the
@@ -56,6 +57,31 @@ public final class AmbiguousStartMoments {
         public static Options defaults(long seed) {
             return new Options(0.95, 1000, seed);
         }
+    }
+
+    /**
+     * @param cases   the cases; categories are ignored (if each exposure's category is drawn
+     *                independently with probabilities pi_c, J is still geometric and p is the
+     *                per-exposure average &Sigma; pi_c p_c)
+     * @param options level, replicates and seed
+     * @return the moment estimates with bootstrap intervals and the status of the solution
+     * @throws EstimationException if no case has a second candidate, or the mean solves to &le; 0
+     */
+    public static MomentFit fit(AmbiguousStartCases cases, Options options) {
+        return fit(cases, options, ForkJoinPool.commonPool());
+    }
+
+    /**
+     * @param cases    the cases
+     * @param options  level, replicates and seed
+     * @param executor where bootstrap replicates run (results do not depend on it)
+     * @return as {@link #fit(AmbiguousStartCases, Options)}
+     */
+    public static MomentFit fit(AmbiguousStartCases cases, Options options, Executor executor) {
+        if (cases == null || options == null || executor == null) {
+            throw new IllegalArgumentException("cases, options and executor must not be null");
+        }
+        return fit(Prepared.from(cases), options, executor);
     }
 
     /** Raw solution {lambda, mu, sigma^2, p, q/p}; throws if lambda or mu is not positive. */
@@ -128,7 +154,4 @@ public final class AmbiguousStartMoments {
         return br.percentile(j, level);
     }
 
-    static Executor defaultExecutor() {
-        return ForkJoinPool.commonPool();
-    }
 }

@@ -34,7 +34,9 @@ final class Prepared {
     final int[] cat;
     /** Recorded exposures per case and category (including those with d &le; 0), flat n &times; max(K,1). */
     final int[] recorded;
-    /** Total exposure count M per case, or null. */
+    /** Marker of an unknown total in {@link #total}. */
+    static final int UNKNOWN = -1;
+    /** Total exposure count M per case ({@link #UNKNOWN} if not known), or null. */
     final int[] total;
     /** Largest number of usable candidates in one case. */
     final int maxM;
@@ -118,7 +120,7 @@ final class Prepared {
                 throw new IllegalArgumentException("case " + name(ids, i) + " (end " + ends[i]
                         + ") has no candidate start before its end; its likelihood would be 0");
             }
-            if (totals != null && totals[i] < b - a) {
+            if (totals != null && totals[i] != UNKNOWN && totals[i] < b - a) {
                 throw new IllegalArgumentException("total exposures of case " + name(ids, i) + " must be >= its "
                         + (b - a) + " recorded starts, was " + totals[i]);
             }
@@ -152,6 +154,21 @@ final class Prepared {
         }
         return new Prepared(n, k, off, logD, dur, rank, cat, recorded, totals == null ? null : totals.clone(),
                 ids == null ? null : ids.clone());
+    }
+
+    /** Adapter from the observation type. */
+    static Prepared from(org.incipit.core.observe.AmbiguousStartCases c) {
+        int n = c.caseCount();
+        int k = Math.max(1, c.categoryNames().size());
+        int[] totals = null;
+        if (c.hasTotalExposures()) {
+            totals = new int[n];
+            for (int i = 0; i < n; i++) {
+                totals[i] = c.totalExposures(i);
+            }
+        }
+        String[] ids = c.ids().toArray(new String[0]);
+        return of(c.ends(), c.offsets(), c.starts(), c.hasCategories() ? c.categoryCodes() : null, k, totals, ids);
     }
 
     /** One duration per case, no p: for plain fits (naive rules). */
