@@ -33,6 +33,15 @@ import org.slf4j.LoggerFactory;
  * maxIterations (default 20,000); both reported. Mean and sd of H from the histogram (uniform
  * within bins). Intervals: nonparametric bootstrap over cases, percentile method; a replicate
  * whose EM does not converge counts as failed.
+ *
+ * <p><b>Small-sample bias.</b> The unpenalised histogram NPMLE places small spurious masses at
+ * long durations (the earliest candidates of cases with many exposures), which overstates the
+ * mean and, more, the sd at small n. Seeded study (open stream, gamma(3, 0.6) with mean 5 and
+ * sd 2.89, p = 0.3, lambda = 0.5, 20 data sets each, daily bins): mean 6.13 / sd 4.96 at
+ * n = 300, 5.44 / 4.04 at n = 1000; single lognormal(1.5, 0.5) data sets (mean 5.08, sd 2.70):
+ * 5.14 / 3.03 at n = 4000, 5.09 / 2.92 at n = 20,000, 5.11 / 2.84 at n = 80,000. Wider bins reduce it (two-day bins at n = 300:
+ * 5.62 / 4.34). Prefer the parametric fit or the moment estimator for small data sets; use
+ * this estimator as a check of the family's shape.
  */
 public final class AmbiguousStartEm {
 

@@ -67,7 +67,8 @@ class ConsistencyTest {
      * moment mean 0.28 (-> 0.125, 2.5%), moment sd 0.60 (-> 0.27, 10%; the moment variance is a
      * difference of noisy moments); EM mean 0.12 (-> 0.055, 1.1%), EM sd 0.25 (-> 0.11, 4%). The
      * EM sd is biased upwards at finite n (the nonparametric MLE puts small spurious masses in
-     * the far tail: +12% at n = 4000, +8% at 20,000, +5% at 80,000 in that study). Accepted:
+     * the far tail: +12% at n = 4000, +8% at 20,000, +5% at 80,000 in single seeded data sets;
+     * the sampling sds above were measured with the grid capped at 40 days). Accepted:
      * moment mean 8%, moment sd 30%, EM mean 3%, EM sd 15% (bias + about 2 sd).
      */
     @Test

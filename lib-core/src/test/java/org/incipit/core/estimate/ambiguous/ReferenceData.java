@@ -47,6 +47,16 @@ final class ReferenceData {
         return out;
     }
 
+    /** The same data set through the public observation builder. */
+    static org.incipit.core.observe.AmbiguousStartCases cases(String name) {
+        org.incipit.core.observe.AmbiguousStartCases.Builder b = org.incipit.core.observe.AmbiguousStartCases.builder();
+        for (String[] f : rows(name + ".csv")) {
+            b.addCandidate(f[0], Double.parseDouble(f[1]), Double.parseDouble(f[2]), f[3],
+                    f[4].isEmpty() ? org.incipit.core.observe.AmbiguousStartCases.UNKNOWN_TOTAL : Integer.parseInt(f[4]));
+        }
+        return b.build();
+    }
+
     static ReferenceData read(String name) {
         List<String[]> rows = rows(name + ".csv");
         Map<String, Integer> kindIndex = new LinkedHashMap<>();
