@@ -154,6 +154,52 @@ final class AmbiguousLikelihood implements LogLikelihood {
         evaluate(theta, new double[q], outRowMajor);
     }
 
+    /**
+     * A view for Newton's method: every value-and-gradient evaluation also computes the Hessian
+     * in the same pass and keeps it, so that the maximiser's Hessian request at an accepted
+     * point costs nothing. Thread-safe (the kept entry is immutable and checked against theta).
+     */
+    LogLikelihood withHessianReuse() {
+        AmbiguousLikelihood kernel = this;
+        return new LogLikelihood() {
+            private final java.util.concurrent.atomic.AtomicReference<double[][]> last =
+                    new java.util.concurrent.atomic.AtomicReference<>();
+
+            @Override
+            public int dimension() {
+                return q;
+            }
+
+            @Override
+            public double value(double[] theta) {
+                return kernel.value(theta);
+            }
+
+            @Override
+            public double valueAndGradient(double[] theta, double[] gradientOut) {
+                double[] h = new double[q * q];
+                double v = kernel.evaluate(theta, gradientOut, h);
+                last.set(new double[][] {theta.clone(), h});
+                return v;
+            }
+
+            @Override
+            public boolean hasHessian() {
+                return true;
+            }
+
+            @Override
+            public void hessian(double[] theta, double[] out) {
+                double[][] e = last.get();
+                if (e != null && Arrays.equals(e[0], theta)) {
+                    System.arraycopy(e[1], 0, out, 0, q * q);
+                } else {
+                    kernel.hessian(theta, out);
+                }
+            }
+        };
+    }
+
     /** Value, and gradient / Hessian if the arrays are non-null. */
     double evaluate(double[] theta, double[] grad, double[] hess) {
         boolean hs = hess != null;

@@ -2,9 +2,12 @@ package org.incipit.core.estimate.ambiguous;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.concurrent.Executor;
 import java.util.function.ToDoubleFunction;
 
 import org.incipit.core.EstimationException;
+import org.incipit.core.inference.Bootstrap;
+import org.incipit.core.inference.BootstrapResult;
 import org.incipit.core.inference.Estimate;
 import org.incipit.core.inference.ModelComparison;
 import org.incipit.core.likelihood.LogLikelihood;
@@ -157,6 +160,85 @@ public final class AmbiguousStartEstimator {
         return naive(Prepared.from(cases), Family.byName(family.name()), rule, level);
     }
 
+    /**
+     * The log-likelihood itself, for method developers (custom maximisers, profiles, timing):
+     * over the unconstrained vector (phi1, phi2, logit p_1, ..., logit p_K) with phi = (log shape,
+     * log rate) for gamma, (log shape, log scale) for Weibull, (meanLog, log sdLog) for
+     * lognormal; analytic gradient and Hessian; thread-safe. Data with at least 40,000 candidates
+     * are evaluated in two halves concurrently (on the common fork-join pool) and added in a
+     * fixed order, so values do not depend on the threads.
+     *
+     * @param cases   the cases
+     * @param family  gamma, Weibull or lognormal
+     * @param history the exposure-history model
+     * @return the log-likelihood
+     * @throws IllegalArgumentException as {@link #fit(AmbiguousStartCases, DelayFamily, ExposureHistory)}
+     */
+    public static LogLikelihood logLikelihood(AmbiguousStartCases cases, DelayFamily family, ExposureHistory history) {
+        requireNonNull(cases, family, history);
+        return new AmbiguousLikelihood(Prepared.from(cases), Family.byName(family.name()), history);
+    }
+
+    /**
+     * The maximisation alone (no intervals): the engine fit on the scale of
+     * {@link #logLikelihood}, parameters named as in {@link AmbiguousStartFit}.
+     *
+     * @param cases   the cases
+     * @param family  gamma, Weibull or lognormal
+     * @param history the exposure-history model
+     * @return the engine fit; check its status
+     */
+    public static MaximumLikelihoodFit maximumLikelihood(AmbiguousStartCases cases, DelayFamily family,
+                                                         ExposureHistory history) {
+        requireNonNull(cases, family, history);
+        Prepared d = Prepared.from(cases);
+        return maximumLikelihood(d, Family.byName(family.name()), history,
+                cases.hasCategories() ? cases.categoryNames() : List.of("all"));
+    }
+
+    /**
+     * Nonparametric bootstrap of the ML fit over cases (Bootstrap.nonparametric, seeded;
+     * identical for any executor): each replicate refits and returns {param1, param2, p_1..p_K,
+     * mean, sd}; a replicate whose fit does not converge counts as failed.
+     *
+     * @param cases      the cases
+     * @param family     gamma, Weibull or lognormal
+     * @param history    the exposure-history model
+     * @param replicates &ge; 1
+     * @param seed       master seed
+     * @param executor   where replicates run
+     * @return the bootstrap result (percentile or basic intervals per component)
+     * @throws EstimationException if the fit to the full data does not converge
+     */
+    public static BootstrapResult bootstrap(AmbiguousStartCases cases, DelayFamily family, ExposureHistory history,
+                                            int replicates, long seed, Executor executor) {
+        requireNonNull(cases, family, history, executor);
+        return bootstrap(Prepared.from(cases), Family.byName(family.name()), history, replicates, seed, executor);
+    }
+
+    static BootstrapResult bootstrap(Prepared d, Family family, ExposureHistory history, int replicates, long seed,
+                                     Executor executor) {
+        MaximumLikelihoodFit full = maximumLikelihood(d, family, history, null);
+        if (!full.converged()) {
+            throw new EstimationException("fit to the full data did not converge: " + full.message());
+        }
+        return Bootstrap.nonparametric(seed, replicates, d.n, idx -> {
+            MaximumLikelihoodFit f = maximumLikelihood(d.subset(idx), family, history, null);
+            if (!f.converged()) {
+                throw new EstimationException("replicate fit: " + f.message());
+            }
+            return statistic(f, family);
+        }, statistic(full, family), executor);
+    }
+
+    private static double[] statistic(MaximumLikelihoodFit f, Family family) {
+        double[] x = f.naturalEstimate();
+        double[] out = java.util.Arrays.copyOf(x, x.length + 2);
+        out[x.length] = family.mean(x[0], x[1]);
+        out[x.length + 1] = family.sd(x[0], x[1]);
+        return out;
+    }
+
     private static void requireNonNull(Object... args) {
         for (Object a : args) {
             if (a == null) {
@@ -173,27 +255,10 @@ public final class AmbiguousStartEstimator {
         if (data.categories < 1) {
             throw new IllegalArgumentException("data must have >= 1 transmission category");
         }
-        AmbiguousLikelihood ll = new AmbiguousLikelihood(data, family, history);
         int k = data.categories;
-        List<String> names = new ArrayList<>(List.of(family.name1, family.name2));
-        List<ParameterTransform> transforms = new ArrayList<>(family.transforms());
         List<String> labels = categoryLabels != null ? categoryLabels : defaultLabels(k);
-        for (int c = 0; c < k; c++) {
-            names.add(k == 1 ? "p" : "p[" + labels.get(c) + "]");
-            transforms.add(ParameterTransform.logit());
-        }
-        Parameterisation param = Parameterisation.of(names, transforms);
-        double[] d1 = data.earliest();
-        double meanCand = (double) data.candidates() / data.n;
-        double p0 = Math.max(0.05, Math.min(0.95, 1 / meanCand));
-        Optimum best = maximise(ll, family, d1, k, new double[] {0.7}, p0);
-        if (!best.converged()) {
-            Optimum more = maximise(ll, family, d1, k, new double[] {1.0, 1.3}, 0.5);
-            if (more.converged() || more.value() > best.value()) {
-                best = more;
-            }
-        }
-        MaximumLikelihoodFit fit = MaximumLikelihoodFit.of(param, ll, Maximiser.newton(), best, data.n);
+        MaximumLikelihoodFit fit = maximumLikelihood(data, family, history, labels);
+        List<ParameterTransform> transforms = family.transforms();
         LOG.debug("{} fit under {}: {}", family.label, history.label(), fit);
         double[] nat = fit.naturalEstimate();
         List<Estimate> params = new ArrayList<>();
@@ -214,6 +279,34 @@ public final class AmbiguousStartEstimator {
         return new AmbiguousStartFit(family.label, history, List.of(family.name1, family.name2), params, labels, ps,
                 mean, sd, options.quantileLevels(), qs, fit.logLikelihood(), fit.aic(), data.n, data.candidates(),
                 fit.converged(), fit.message(), fit);
+    }
+
+    static MaximumLikelihoodFit maximumLikelihood(Prepared data, Family family, ExposureHistory history,
+                                                  List<String> categoryLabels) {
+        if (data.categories < 1) {
+            throw new IllegalArgumentException("data must have >= 1 transmission category");
+        }
+        LogLikelihood ll = new AmbiguousLikelihood(data, family, history).withHessianReuse();
+        int k = data.categories;
+        List<String> names = new ArrayList<>(List.of(family.name1, family.name2));
+        List<ParameterTransform> transforms = new ArrayList<>(family.transforms());
+        List<String> labels = categoryLabels != null ? categoryLabels : defaultLabels(k);
+        for (int c = 0; c < k; c++) {
+            names.add(k == 1 ? "p" : "p[" + labels.get(c) + "]");
+            transforms.add(ParameterTransform.logit());
+        }
+        Parameterisation param = Parameterisation.of(names, transforms);
+        double[] d1 = data.earliest();
+        double meanCand = (double) data.candidates() / data.n;
+        double p0 = Math.max(0.05, Math.min(0.95, 1 / meanCand));
+        Optimum best = maximise(ll, family, d1, k, new double[] {0.7}, p0);
+        if (!best.converged()) {
+            Optimum more = maximise(ll, family, d1, k, new double[] {1.0, 1.3}, 0.5);
+            if (more.converged() || more.value() > best.value()) {
+                best = more;
+            }
+        }
+        return MaximumLikelihoodFit.of(param, ll, Maximiser.newton(), best, data.n);
     }
 
     static List<String> defaultLabels(int k) {
