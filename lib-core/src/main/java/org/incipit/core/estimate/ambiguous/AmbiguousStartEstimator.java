@@ -36,7 +36,9 @@ import org.slf4j.LoggerFactory;
  *
  * <p><b>Intervals</b>: Wald on the estimation scale; delta method on the log scale for the
  * mean, sd and quantiles of H (engine {@link MaximumLikelihoodFit#delta}); profile intervals
- * through {@link AmbiguousStartFit#fit()}.
+ * through {@link AmbiguousStartFit#fit()}. A transmission probability within 1e-6 of 0 or 1 is
+ * a maximum on the boundary (what a wrong exposure-history model produces): the fit is then
+ * reported as not converged, with the uninformative intervals of {@link AmbiguousStartFit}.
  */
 public final class AmbiguousStartEstimator {
 
@@ -261,24 +263,38 @@ public final class AmbiguousStartEstimator {
         List<ParameterTransform> transforms = family.transforms();
         LOG.debug("{} fit under {}: {}", family.label, history.label(), fit);
         double[] nat = fit.naturalEstimate();
+        // A p within BOUNDARY of 0 or 1 is a supremum on the edge of the parameter space: the
+        // engine may call it converged (gradient vanishing as logit p -> -+infinity), but Wald
+        // and delta intervals mean nothing there.
+        StringBuilder edge = new StringBuilder();
+        for (int c = 0; c < k; c++) {
+            if (nat[2 + c] < BOUNDARY || nat[2 + c] > 1 - BOUNDARY) {
+                edge.append(edge.length() == 0 ? "" : ", ").append(fit.parameterisation().names().get(2 + c))
+                        .append(" = ").append(nat[2 + c]);
+            }
+        }
+        boolean interior = fit.converged() && edge.length() == 0;
+        String message = edge.length() == 0 ? fit.message()
+                : "maximum on the boundary of the parameter space (" + edge + "): the " + history.label()
+                        + " exposure history is probably wrong for these data; " + fit.message();
         List<Estimate> params = new ArrayList<>();
         for (int i = 0; i < 2; i++) {
-            params.add(fit.converged() ? fit.wald(i, options.level()) : none(nat[i], transforms.get(i), options.level()));
+            params.add(interior ? fit.wald(i, options.level()) : none(nat[i], transforms.get(i), options.level()));
         }
         List<Estimate> ps = new ArrayList<>();
         for (int c = 0; c < k; c++) {
-            ps.add(fit.converged() ? fit.wald(2 + c, options.level())
+            ps.add(interior ? fit.wald(2 + c, options.level())
                     : none(nat[2 + c], ParameterTransform.logit(), options.level()));
         }
-        Estimate mean = derived(fit, x -> family.mean(x[0], x[1]), nat, options.level());
-        Estimate sd = derived(fit, x -> family.sd(x[0], x[1]), nat, options.level());
+        Estimate mean = derived(fit, interior, x -> family.mean(x[0], x[1]), nat, options.level());
+        Estimate sd = derived(fit, interior, x -> family.sd(x[0], x[1]), nat, options.level());
         List<Estimate> qs = new ArrayList<>();
         for (double pr : options.quantileLevels()) {
-            qs.add(derived(fit, x -> family.quantile(x[0], x[1], pr), nat, options.level()));
+            qs.add(derived(fit, interior, x -> family.quantile(x[0], x[1], pr), nat, options.level()));
         }
         return new AmbiguousStartFit(family.label, history, List.of(family.name1, family.name2), params, labels, ps,
                 mean, sd, options.quantileLevels(), qs, fit.logLikelihood(), fit.aic(), data.n, data.candidates(),
-                fit.converged(), fit.message(), fit);
+                interior, message, fit);
     }
 
     static MaximumLikelihoodFit maximumLikelihood(Prepared data, Family family, ExposureHistory history,
@@ -349,12 +365,16 @@ public final class AmbiguousStartEstimator {
     }
 
     /** Delta-method interval on the log scale, or the uninformative interval. */
-    private static Estimate derived(MaximumLikelihoodFit fit, ToDoubleFunction<double[]> f, double[] nat, double level) {
+    /** p closer than this to 0 or 1 is reported as a boundary maximum. */
+    static final double BOUNDARY = 1e-6;
+
+    private static Estimate derived(MaximumLikelihoodFit fit, boolean interior, ToDoubleFunction<double[]> f,
+                                    double[] nat, double level) {
         double v = f.applyAsDouble(nat);
         if (!Double.isFinite(v)) {
             throw new EstimationException("derived quantity of H is not finite at the estimate " + java.util.Arrays.toString(nat));
         }
-        if (!fit.converged()) {
+        if (!interior) {
             return new Estimate(v, 0, Double.POSITIVE_INFINITY, level, AmbiguousStartFit.NO_INTERVAL);
         }
         return fit.delta(f, level, ParameterTransform.log());

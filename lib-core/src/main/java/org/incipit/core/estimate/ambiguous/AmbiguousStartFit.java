@@ -33,7 +33,8 @@ import org.incipit.core.likelihood.MaximumLikelihoodFit;
  * @param aic             2k &minus; 2 log-likelihood
  * @param cases           number of cases n
  * @param candidates      number of candidate starts before the end
- * @param converged       true if an interior maximum with positive-definite information was found
+ * @param converged       true if an interior maximum (every p more than 1e-6 from 0 and 1) with
+ *                        positive-definite information was found
  * @param message         the maximiser's message
  * @param fit             the engine fit (profile intervals, covariance, AICc, BIC)
  */
