@@ -97,6 +97,26 @@ public record ScenarioSpec(Scenario scenario, String description, String generat
         return sampleSizes.clone();
     }
 
+    @Override
+    public boolean equals(Object o) {
+        return o instanceof ScenarioSpec s && scenario.equals(s.scenario) && description.equals(s.description)
+                && generator.equals(s.generator) && estimators.equals(s.estimators)
+                && Arrays.equals(sampleSizes, s.sampleSizes) && replicates == s.replicates && seed == s.seed
+                && Double.compare(level, s.level) == 0;
+    }
+
+    @Override
+    public int hashCode() {
+        return (scenario.hashCode() * 31 + Arrays.hashCode(sampleSizes)) * 31 + Long.hashCode(seed);
+    }
+
+    @Override
+    public String toString() {
+        return "ScenarioSpec[scenario=" + scenario + ", generator=" + generator + ", estimators=" + estimators
+                + ", sampleSizes=" + Arrays.toString(sampleSizes) + ", replicates=" + replicates + ", seed=" + seed
+                + ", level=" + level + "]";
+    }
+
     /**
      * @param file a scenario file (UTF-8)
      * @return the spec

@@ -41,7 +41,7 @@ public interface StudyEstimator<D> {
      * @param <D> data set type
      */
     @FunctionalInterface
-    interface Function<D> {
+    interface EstimateFunction<D> {
         /**
          * @param rng  the estimator's own generator
          * @param data the data set
@@ -58,7 +58,7 @@ public interface StudyEstimator<D> {
      * @return the estimator
      * @throws IllegalArgumentException if the name or a target is invalid
      */
-    static <D> StudyEstimator<D> of(String name, List<String> targets, Function<D> f) {
+    static <D> StudyEstimator<D> of(String name, List<String> targets, EstimateFunction<D> f) {
         Scenario.requireName("estimator name", name);
         Objects.requireNonNull(f, "estimator function");
         if (targets == null || targets.isEmpty()) {

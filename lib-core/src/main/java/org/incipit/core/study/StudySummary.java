@@ -124,6 +124,9 @@ public record StudySummary(String estimator, String target, int sampleSize, doub
     public static StudySummary of(String estimator, String target, int sampleSize, double truth, double level,
                                   double[] estimates, double[] lower, double[] upper,
                                   Map<String, Integer> failureReasons) {
+        if (estimates == null || lower == null || upper == null || failureReasons == null) {
+            throw new IllegalArgumentException("estimates, lower, upper and failureReasons must not be null");
+        }
         int m = estimates.length;
         if (lower.length != m || upper.length != m) {
             throw new IllegalArgumentException("estimates, lower and upper must have the same length, had " + m

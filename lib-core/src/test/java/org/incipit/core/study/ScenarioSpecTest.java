@@ -48,6 +48,8 @@ class ScenarioSpecTest {
         assertEquals(-42, s.seed());
         assertEquals(0.9, s.level());
         assertEquals(0.95, ScenarioSpec.parse(FILE.replace("level = 0.9\n", ""), "f").level());
+        assertEquals(s, ScenarioSpec.parse(FILE.replace("sizes = 5, 10,20", "sizes=5,10,20"), "g"));
+        assertEquals(s.hashCode(), ScenarioSpec.parse(FILE, "g").hashCode());
     }
 
     @Test
