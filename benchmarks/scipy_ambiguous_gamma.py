@@ -26,11 +26,13 @@ per case (1/p + lambda E[X] = 2 + 1).
 
 Commands (from the repository root):
     python3 benchmarks/scipy_ambiguous_gamma.py generate N FILE [SEED]   # CSV case,end,start
+    python3 benchmarks/scipy_ambiguous_gamma.py selftest                 # value vs loop, gradient vs FD
     python3 benchmarks/scipy_ambiguous_gamma.py time [REPEATS]           # warm fits, n = 1e4 and 1e5
     python3 benchmarks/scipy_ambiguous_gamma.py whole FILE OUT.json      # read, fit, Wald, write
     /usr/bin/time -p python3 benchmarks/scipy_ambiguous_gamma.py whole FILE OUT.json
-'time' prints one line per n:
-    RESULT n=<n> median_s=<s> min_s=<s> repeats=<k> loglik=<v> shape=<a> rate=<b> p=<p> iterations=<i>
+'time' simulates with seed 20261201 + n and prints one line per n:
+    RESULT n=<n> candidates=<c> median_s=<s> min_s=<s> repeats=<k> loglik=<v> shape=<a> rate=<b> p=<p>
+           iterations=<i> evaluations=<e> converged=<bool>     (one line)
 'whole' prints:
     WHOLE n=<n> read_s=<s> fit_s=<s> wald_s=<s> write_s=<s> total_in_process_s=<s> loglik=<v>
 """
@@ -41,6 +43,7 @@ import time
 
 import numpy as np
 import scipy
+import scipy.stats
 from scipy import optimize, special
 
 START = np.array([0.0, 0.0, np.log(0.3 / 0.7)])  # log a, log b, logit p at a = 1, b = 1, p = 0.3
@@ -57,11 +60,10 @@ def simulate(n, seed, shape=TRUE["shape"], rate=TRUE["rate"], p=TRUE["p"], lam=T
     k = rng.poisson(lam * x)                      # exposures after infection, before onset
     pre_case = np.repeat(np.arange(n), j - 1)
     gaps = rng.exponential(1.0 / lam, pre_case.size)
-    # cumulative gaps backwards from tau within each case
-    csum = np.cumsum(gaps)
+    # distance back from tau: cumulative gaps within each case (csum0[first[c]] = gaps of earlier cases)
+    csum0 = np.concatenate(([0.0], np.cumsum(gaps)))
     first = np.concatenate(([0], np.cumsum(j - 1)[:-1]))
-    offset = np.repeat(csum[first - 1] * (first > 0) if csum.size else np.zeros(n), j - 1) if csum.size else csum
-    back = csum - offset if csum.size else csum
+    back = csum0[1:] - np.repeat(csum0[first], j - 1)
     pre = tau[pre_case] - back
     post_case = np.repeat(np.arange(n), k)
     post = tau[post_case] + rng.uniform(0.0, 1.0, post_case.size) * x[post_case]
@@ -72,50 +74,46 @@ def simulate(n, seed, shape=TRUE["shape"], rate=TRUE["rate"], p=TRUE["p"], lam=T
     return case, end[case], start
 
 
-def padded(case, end, start):
-    """Delays d[i, r] for candidate rank r (0-based) of case i, and a mask of real entries."""
+def flat(case, end, start):
+    """Candidates in time order within each case, as flat arrays: delays d, rank j-1 within the
+    case, the index of each case's first candidate and the case index of every candidate."""
     case = np.asarray(case)
     order = np.lexsort((start, case))
     case, end, start = case[order], end[order], start[order]
     uniq, first, counts = np.unique(case, return_index=True, return_counts=True)
-    width = counts.max()
-    rank = np.arange(case.size) - np.repeat(first, counts)
-    row = np.repeat(np.arange(uniq.size), counts)
-    d = np.ones((uniq.size, width))
-    mask = np.zeros((uniq.size, width), dtype=bool)
-    d[row, rank] = end - start
-    mask[row, rank] = True
-    if np.any(d[mask] <= 0):
+    d = end - start
+    if np.any(d <= 0):
         raise ValueError("every candidate start must precede its end")
-    return d, mask
+    rank = (np.arange(case.size) - np.repeat(first, counts)).astype(float)
+    row = np.repeat(np.arange(uniq.size), counts)
+    return d, rank, first, row
 
 
 class OpenGamma:
-    """Negative log-likelihood and gradient on (log a, log b, logit p)."""
+    """Negative log-likelihood and gradient on (log a, log b, logit p), over flat candidate
+    arrays (no padding): per-case max and sums by np.maximum.reduceat / np.add.reduceat."""
 
-    def __init__(self, d, mask):
-        self.mask = mask
-        self.d = d
-        self.logd = np.where(mask, np.log(d), 0.0)
-        self.jm1 = np.broadcast_to(np.arange(d.shape[1], dtype=float), d.shape)
-        self.n = d.shape[0]
+    def __init__(self, d, rank, first, row):
+        self.d, self.logd, self.jm1, self.first, self.row = d, np.log(d), rank, first, row
+        self.n = first.size
 
     def __call__(self, theta):
         a, b = np.exp(theta[0]), np.exp(theta[1])
         p = special.expit(theta[2])
         log1mp = -np.logaddexp(0.0, theta[2])     # log(1 - p), stable
         logp = -np.logaddexp(0.0, -theta[2])      # log p, stable
-        terms = (logp + self.jm1 * log1mp + a * np.log(b) - special.gammaln(a)
-                 + (a - 1.0) * self.logd - b * self.d)
-        terms = np.where(self.mask, terms, -np.inf)
-        m = terms.max(axis=1, keepdims=True)
-        e = np.exp(terms - m)
-        s = e.sum(axis=1, keepdims=True)
-        ll = float(np.sum(np.log(s[:, 0]) + m[:, 0]))
-        w = e / s
-        ga = np.sum(w * (np.log(b) - special.digamma(a) + self.logd))
-        gb = np.sum(w * (a / b - self.d))
-        gp = np.sum(w * (1.0 / p - self.jm1 / (1.0 - p)))
+        logb = theta[1]
+        terms = (logp + a * logb - special.gammaln(a)) + self.jm1 * log1mp + (a - 1.0) * self.logd - b * self.d
+        m = np.maximum.reduceat(terms, self.first)
+        e = np.exp(terms - m[self.row])
+        s = np.add.reduceat(e, self.first)
+        ll = float(np.sum(np.log(s) + m))
+        w = e / s[self.row]                       # weights sum to 1 within each case
+        sw_logd, sw_d, sw_j = w @ self.logd, w @ self.d, w @ self.jm1
+        n = self.n
+        ga = n * (logb - special.digamma(a)) + sw_logd
+        gb = n * a / b - sw_d
+        gp = n / p - sw_j / (1.0 - p)
         g = np.array([ga * a, gb * b, gp * p * (1.0 - p)])
         return -ll, -g
 
@@ -167,7 +165,7 @@ def read_csv(path):
 def cmd_time(repeats):
     for n in (10_000, 100_000):
         case, end, start = simulate(n, seed=20261201 + n)
-        model = OpenGamma(*padded(case, end, start))
+        model = OpenGamma(*flat(case, end, start))
         fit(model)  # warm-up
         times, res = [], None
         for _ in range(repeats):
@@ -176,15 +174,15 @@ def cmd_time(repeats):
             times.append(time.perf_counter() - t0)
         a, b, p = natural(res.x)
         print("RESULT n=%d candidates=%d median_s=%.4f min_s=%.4f repeats=%d loglik=%.10f shape=%.8f rate=%.8f "
-              "p=%.8f iterations=%d converged=%s"
-              % (n, case.size, statistics.median(times), min(times), repeats, -res.fun, a, b, p, res.nit,
+              "p=%.8f iterations=%d evaluations=%d converged=%s"
+              % (n, case.size, statistics.median(times), min(times), repeats, -res.fun, a, b, p, res.nit, res.nfev,
                  res.success))
 
 
 def cmd_whole(path, out):
     t0 = time.perf_counter()
     case, end, start = read_csv(path)
-    model = OpenGamma(*padded(case, end, start))
+    model = OpenGamma(*flat(case, end, start))
     t1 = time.perf_counter()
     res = fit(model)
     t2 = time.perf_counter()
@@ -199,6 +197,23 @@ def cmd_whole(path, out):
           % (model.n, t1 - t0, t2 - t1, t3 - t2, t4 - t3, t4 - t0, -res.fun))
 
 
+def cmd_selftest():
+    """Vectorised value against a plain loop with scipy.stats.gamma.pdf, and the analytic
+    gradient against finite differences (scipy.optimize.check_grad)."""
+    case, end, start = simulate(500, seed=5)
+    model = OpenGamma(*flat(case, end, start))
+    theta = np.array([0.3, -0.5, 0.2])
+    a, b, p = natural(theta)
+    loop = 0.0
+    for c in np.unique(case):
+        st = np.sort(start[case == c])
+        t = end[case == c][0]
+        loop += np.log(sum(p * (1 - p) ** j * scipy.stats.gamma.pdf(t - e, a, scale=1 / b) for j, e in enumerate(st)))
+    err = optimize.check_grad(lambda t: model(t)[0], lambda t: model(t)[1], theta)
+    print("SELFTEST loglik_vectorised=%.12f loglik_loop=%.12f rel_diff=%.2e gradient_fd_error=%.2e gradient_norm=%.2e"
+          % (-model(theta)[0], loop, abs(-model(theta)[0] - loop) / abs(loop), err, np.linalg.norm(model(theta)[1])))
+
+
 def main(argv):
     if len(argv) >= 3 and argv[0] == "generate":
         n = int(argv[1])
@@ -206,6 +221,8 @@ def main(argv):
         write_csv(argv[2], *simulate(n, seed))
     elif len(argv) >= 1 and argv[0] == "time":
         cmd_time(int(argv[1]) if len(argv) > 1 else 5)
+    elif len(argv) == 1 and argv[0] == "selftest":
+        cmd_selftest()
     elif len(argv) == 3 and argv[0] == "whole":
         cmd_whole(argv[1], argv[2])
     else:
