@@ -183,7 +183,7 @@ public record ScenarioSpec(Scenario scenario, String description, String generat
             } else if (k.startsWith("option.")) {
                 put(r, k, options, values.get(k), "option");
             } else if (k.equals("family")) {
-                options.put("family", values.get(k));
+                put(r, "option.family", options, values.get(k), "option");
             }
         }
         String name = r.required("name");
@@ -228,6 +228,7 @@ public record ScenarioSpec(Scenario scenario, String description, String generat
 
     private static <V> void put(Reader r, String key, Map<String, V> into, V value, String what) {
         String name = key.substring(key.indexOf('.') + 1);
+        key = r.values().containsKey(key) ? key : name; // 'family' is short for 'option.family'
         r.wrap(key, () -> {
             Scenario.requireName(what + " name", name);
             return null;
