@@ -81,7 +81,7 @@ class ScenarioSpecTest {
         "seed = -42|mean = 6|f:14: key 'mean' repeats line 7",
         "replicates = 50|#|f: required key 'replicates' is missing",
         "truth.variance = 4|truth.sd = 4|f:9: truth 'sd' is given twice",
-        "option.note = unused text|option.family = gamma|f:6: option 'family' is given twice"
+        "option.note = unused text|option.family = gamma|f:11: option 'family' is given twice"
     })
     void errorsNameLineAndKey(String from, String to, String message) {
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
