@@ -90,7 +90,7 @@ public final class AnalyseCommand extends AbstractCommand {
         }
         Analysis.Inputs in = new Analysis.Inputs(counts, delays, cutoff, intervals, incubation,
                 generationMean == null ? null : generationFamily, mean, sd, mci, sci, from, to,
-                input.readOptions(), null, "Early-phase analysis", null);
+                input.readOptions(), null, "Early-phase analysis", null, "from candidate start to end", null);
         return finish(this, new Analysis(in, out, err()).run(), out);
     }
 

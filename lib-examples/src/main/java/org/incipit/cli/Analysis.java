@@ -19,6 +19,13 @@ import org.incipit.core.growth.InfectivityProfile;
 import org.incipit.core.growth.RenewalEstimator;
 import org.incipit.core.growth.WindowReproduction;
 import org.incipit.core.inference.Estimate;
+import org.incipit.core.estimate.ambiguous.AmbiguousStartEstimator;
+import org.incipit.core.estimate.ambiguous.AmbiguousStartFit;
+import org.incipit.core.estimate.ambiguous.ExposureHistory;
+import org.incipit.core.estimate.ambiguous.NaiveFit;
+import org.incipit.core.estimate.ambiguous.NaiveRule;
+import org.incipit.core.inference.ModelComparison;
+import org.incipit.core.observe.AmbiguousStartCases;
 import org.incipit.core.observe.DailyCounts;
 import org.incipit.distributions.DelayFamilies;
 import org.incipit.distributions.DelayFamily;
@@ -48,7 +55,8 @@ final class Analysis {
     record Inputs(Path counts, Path delays, String cutoff, Path intervals, Path incubation,
                   String generationFamily, double generationMean, double generationSd,
                   double[] generationMeanCi, double[] generationSdCi,
-                  String from, String to, ReadOptions read, JsonNode truth, String title, String origin) {
+                  String from, String to, ReadOptions read, JsonNode truth, String title, String origin,
+                  String intervalName, String intervalTruth) {
     }
 
     private final Inputs in;
@@ -64,6 +72,7 @@ final class Analysis {
     // shared between steps
     private GrowthRateFit growth;
     private ReadResult<DailyCounts> counts;
+    private ReadResult<AmbiguousStartCases> intervals;
 
     Analysis(Inputs in, Path out, PrintWriter err) {
         this.in = in;
@@ -71,7 +80,7 @@ final class Analysis {
         this.figures = out.resolve("figures");
         this.err = err;
         this.report = HtmlReport.titled(in.title());
-        this.steps = 4;
+        this.steps = 4 + (in.intervals() != null ? 1 : 0);
     }
 
     /** Runs every step and writes the folder; returns the results JSON. */
@@ -94,6 +103,10 @@ final class Analysis {
             step += 2;
             results.putNull("reproduction");
             results.putNull("reproductionOverTime");
+        }
+        if (in.intervals() != null) {
+            progress("interval with ambiguous starts (" + in.intervalName() + ")");
+            guarded("intervals", this::intervalsSection);
         }
         progress("writing the report");
         ArrayNode f = results.putArray("failures");
@@ -127,6 +140,7 @@ final class Analysis {
             case "growth" -> "Growth rate";
             case "reproduction" -> "Reproduction number";
             case "reproductionOverTime" -> "Reproduction number over time";
+            case "intervals" -> "Interval with ambiguous starts";
             default -> name;
         };
     }
@@ -146,6 +160,12 @@ final class Analysis {
         rows.add(List.of("daily counts", in.counts().getFileName().toString(),
                 c.size() + " days, " + c.totalCases() + " cases" + (c.hasDeaths() ? ", " + sum(c.deaths()) + " deaths"
                         : "") + (c.hasRecoveries() ? ", " + sum(c.recoveries()) + " recoveries" : "")));
+        if (in.intervals() != null) {
+            intervals = CsvInput.intervals(in.intervals(), in.read());
+            AmbiguousStartCases a = intervals.data();
+            rows.add(List.of("cases with candidate starts", in.intervals().getFileName().toString(),
+                    a.caseCount() + " cases, " + a.candidateCount() + " candidate starts"));
+        }
         ObjectNode d = results.putObject("data");
         d.put("counts", in.counts().toString());
         d.put("days", c.size());
@@ -327,6 +347,124 @@ final class Analysis {
                 .figure(png, "Posterior mean of R over sliding 7-day windows with its 95% credible band, from the "
                         + "first window holding at least 12 cases; dashed line: "
                         + (Double.isNaN(truth) ? "R = 1." : "the true R of the simulation."));
+    }
+
+    // ---------------------------------------------------------------- intervals
+
+    private void intervalsSection() throws IOException {
+        AmbiguousStartCases cases = intervals.data();
+        ExposureHistory history = IntervalsCommand.history(null, cases);
+        AmbiguousStartEstimator.Comparison c = AmbiguousStartEstimator.compare(cases, DelayFamilies.all(), history,
+                ModelComparison.Criterion.AIC, AmbiguousStartEstimator.Options.defaults());
+        String bestName = c.ranking().best().name();
+        AmbiguousStartFit best = null;
+        ObjectNode o = results.putObject("intervals");
+        ObjectNode corr = o.putObject("corrected");
+        ArrayNode fits = corr.putArray("fits");
+        List<List<String>> fitRows = new ArrayList<>();
+        for (AmbiguousStartFit f : c.fits()) {
+            fits.add(Fits.json(f));
+            if (f.family().equals(bestName)) {
+                best = f;
+            }
+            fitRows.add(List.of(f.family() + (f.family().equals(bestName) ? " (best)" : ""),
+                    Fits.parameterCell(Fits.summary(f).parameters()), Cli.cell(f.mean()), Cli.cell(f.sd()),
+                    TextTable.number(f.aic()), f.converged() ? "yes" : "no"));
+        }
+        corr.put("best", bestName);
+        corr.put("exposureHistory", history.label());
+        DelayFamily fam = DelayFamilies.byName(bestName);
+        ObjectNode naiveJson = o.putObject("naive");
+        List<Comparison> cmp = new ArrayList<>();
+        List<List<String>> rows = new ArrayList<>();
+        String t = in.intervalTruth();
+        rows.add(row("mean, corrected (" + bestName + ", likelihood)", best.mean(), truth(t + "/mean")));
+        rows.add(row("sd, corrected", best.sd(), truth(t + "/sd")));
+        rows.add(row("transmission probability per exposure", best.p(),
+                truth("contacts/infectionProbability")));
+        NaiveFit midpoint = null;
+        List<String> naiveFailures = new ArrayList<>();
+        for (String[] rule : new String[][] {{"nearest", "LATEST", "nearest start"},
+            {"earliest", "EARLIEST", "earliest start"}, {"midpoint", "MIDPOINT", "midpoint of the starts"},
+            {"single-only", "SINGLE_ONLY", "single-candidate cases only"}}) {
+            try {
+                NaiveFit n = AmbiguousStartEstimator.naive(cases, fam, NaiveRule.valueOf(rule[1]), 0.95);
+                ObjectNode nj = JsonOutput.fit(Fits.summary(n));
+                naiveJson.set(rule[0], nj);
+                rows.add(row("mean, naive: " + rule[2], n.mean(), truth(t + "/mean")));
+                cmp.add(new Comparison(rule[2], n.mean(), best.mean()));
+                if (n.rule() == NaiveRule.MIDPOINT) {
+                    midpoint = n;
+                }
+            } catch (EstimationException e) {
+                naiveJson.put(rule[0], "failed: " + e.getMessage());
+                naiveFailures.add(rule[2] + ": " + e.getMessage());
+            }
+        }
+        HtmlReport.Section s = report.section("Interval with ambiguous starts: " + in.intervalName(),
+                "Each recorded exposure transmits independently with the same probability p, and the first that "
+                        + "transmits starts the interval; exposure history '" + history.label() + "'"
+                        + (history.label().equals("open") ? " (exposures go on until onset, so anyone exposed long "
+                        + "enough becomes a case; the default, since the file has no exposures_total column)"
+                        : "") + "; cases are independent and their intervals follow one distribution of the family "
+                        + "fitted; every case's whole interval is observed (no truncation at the end of the data). "
+                        + "With few cases the interval of the mean is too narrow: in simulations with 60 cases it "
+                        + "contained the truth about 89% of the time instead of 95%.")
+                .paragraph("Maximum likelihood over the candidate starts (docs/methods.md, section 1), each "
+                        + "family fitted and ranked by AIC; 95% intervals by the delta method. The naive rules "
+                        + "take one start per case as if it were known (nearest: too short; earliest: too long)."
+                        + (naiveFailures.isEmpty() ? "" : " Not possible: " + String.join("; ", naiveFailures) + "."))
+                .table(List.of("family", "parameters", "mean (95% interval)", "sd (95% interval)", "AIC",
+                        "converged"), fitRows)
+                .table(header(), rows);
+        // figure: durations to the midpoint of each case's starts, with the fitted densities
+        double[] ends = cases.ends();
+        double[] starts = cases.starts();
+        int[] off = cases.offsets();
+        double[] mid = new double[cases.caseCount()];
+        double max = 0;
+        for (int i = 0; i < mid.length; i++) {
+            mid[i] = ends[i] - 0.5 * (starts[off[i]] + starts[off[i + 1] - 1]);
+            max = Math.max(max, ends[i] - starts[off[i]]);
+        }
+        ParametricDelay fitted = Fits.distribution(best.family(), best.parameters());
+        double hi = Math.max(max, fitted.quantile(0.995));
+        List<Curve> curves = new ArrayList<>();
+        curves.add(Curve.of("corrected fit (" + best.family() + ")", fitted::density, 0.01, hi, 300));
+        if (midpoint != null) {
+            ParametricDelay m = Fits.distribution(midpoint.family(), midpoint.parameters());
+            curves.add(Curve.of("naive fit to the midpoints", m::density, 0.01, hi, 300));
+        }
+        ParametricDelay trueH = trueDelay(t);
+        if (trueH != null) {
+            curves.add(Curve.of("true density", trueH::density, 0.01, hi, 300));
+        }
+        Path hist = figures.resolve("intervals-fit.png");
+        Charts.histogram(hist, "Interval with ambiguous starts: " + in.intervalName(), "days", mid, 15, curves);
+        s.figure(hist, "Bars: duration from the midpoint of each case's candidate starts to its end (what the "
+                + "midpoint rule sees). Lines: the corrected likelihood fit, the naive fit to the midpoints"
+                + (trueH != null ? ", and the true density of the simulation." : "."));
+        if (!cmp.isEmpty()) {
+            Path png = figures.resolve("intervals-comparison.png");
+            Charts.comparison(png, "Mean interval: naive rules versus corrected", "mean (days)", cmp,
+                    truthValue(t + "/mean"));
+            s.figure(png, "Mean interval under each naive rule (grey) beside the corrected likelihood estimate "
+                    + "(blue), with 95% intervals" + (in.truth() != null ? "; dashed line: the true mean." : "."));
+        }
+    }
+
+    /** The true delay at a truth path (family and parameters), or null. */
+    private ParametricDelay trueDelay(String path) {
+        if (in.truth() == null || path == null || in.truth().get(path) == null) {
+            return null;
+        }
+        JsonNode d = in.truth().get(path);
+        DelayFamily fam = DelayFamilies.byName(d.get("family").asText());
+        double[] p = new double[fam.parameterNames().size()];
+        for (int i = 0; i < p.length; i++) {
+            p[i] = d.get("parameters").get(Fits.jsonName(fam.parameterNames().get(i))).asDouble();
+        }
+        return fam.of(p);
     }
 
     // ---------------------------------------------------------------- helpers

@@ -67,7 +67,8 @@ public final class DemoCommand extends AbstractCommand {
                         + sc.seed() + " (regenerate them with 'incipit simulate --out DIR'), so the true "
                         + "values are known and shown beside each estimate. The generation interval (gamma, mean "
                         + TextTable.number(sc.generationMean()) + " days, sd " + TextTable.number(sc.generationSd())
-                        + ", each +-1 day) is given as if from an earlier study.");
+                        + ", each +-1 day) is given as if from an earlier study.",
+                "exposure to onset (incubation period)", "incubationPeriod");
         return AnalyseCommand.finish(this, new Analysis(in, out, err()).run(), out);
     }
 }

@@ -36,7 +36,7 @@ import picocli.CommandLine.Option;
  */
 @Command(name = "intervals",
         mixinStandardHelpOptions = true,
-        description = {"Interval distribution when each case has several candidate starts.",
+        description = {"Intervals with several candidate starts per case.",
             "Corrects for not knowing which exposure (or infector) started it.", ""},
         footer = {"",
             "Input: case,end,start[,kind][,exposures_total], one row per candidate start.",

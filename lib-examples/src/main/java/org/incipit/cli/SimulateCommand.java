@@ -17,7 +17,7 @@ import picocli.CommandLine.Option;
  */
 @Command(name = "simulate",
         mixinStandardHelpOptions = true,
-        description = {"Simulate an outbreak and write it as input files with its true values.",
+        description = {"Simulate an outbreak; write input files and the true values.",
             "Defaults: the shipped demo scenario (invented place and pathogen).", ""},
         footer = {"",
             "Writes counts.csv, delays.csv, intervals.csv, incubation.csv and truth.json.",

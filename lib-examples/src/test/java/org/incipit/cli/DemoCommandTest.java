@@ -35,7 +35,8 @@ class DemoCommandTest {
     void demoWritesTheReportFolder() {
         assertEquals(0, demo.code(), demo.err());
         for (String f : new String[] {"report.html", "results.json", "figures/growth.png",
-            "figures/reproduction-comparison.png", "figures/reproduction-over-time.png", "data/counts.csv",
+            "figures/reproduction-comparison.png", "figures/reproduction-over-time.png",
+            "figures/intervals-fit.png", "figures/intervals-comparison.png", "data/counts.csv",
             "data/truth.json"}) {
             assertTrue(Files.isRegularFile(out.resolve(f)), f);
         }
@@ -62,6 +63,18 @@ class DemoCommandTest {
         assertTrue(naive.get("estimate").asDouble() < j.at("/reproduction/reproductionNumber/estimate").asDouble(),
                 "backward-traced interval used as intrinsic gives a smaller R (methods, section 3)");
         assertTrue(j.get("reproductionOverTime").size() > 10);
+        // the shipped intervals are exposure-to-onset durations: truth = the incubation period
+        double mean = t.at("/incubationPeriod/mean").asDouble();
+        String best = j.at("/intervals/corrected/best").asText();
+        for (JsonNode f : j.at("/intervals/corrected/fits")) {
+            if (f.get("family").asText().equals(best)) {
+                assertCovers(f.get("mean"), mean, "corrected mean interval");
+                assertCovers(f.get("transmissionProbability"), t.at("/contacts/infectionProbability").asDouble(),
+                        "transmission probability");
+            }
+        }
+        assertTrue(j.at("/intervals/naive/nearest/mean/upper").asDouble() < mean, "nearest start: too short");
+        assertTrue(j.at("/intervals/naive/earliest/mean/lower").asDouble() > mean, "earliest start: too long");
     }
 
     static void assertCovers(JsonNode e, double truth, String what) {
@@ -81,7 +94,9 @@ class DemoCommandTest {
         while (m.find()) {
             figures++;
         }
-        assertEquals(3, figures, "every figure embedded");
+        try (var pngs = Files.list(out.resolve("figures"))) {
+            assertEquals(pngs.count(), figures, "every figure embedded");
+        }
         int sections = html.split("<h2>", -1).length - 1;
         int assumptions = html.split("class=\"assumptions\"", -1).length - 1;
         assertEquals(sections, assumptions, "every section states its assumptions");
