@@ -215,7 +215,10 @@ final class Analysis {
         report.section("Growth rate", "Cases grow (or decline) exponentially at a steady rate over the window "
                         + "fitted; the fraction of cases that is recorded does not change over it; daily counts "
                         + "scatter around the trend as Poisson counts (a Pearson dispersion well above 1 says they "
-                        + "scatter more, and the interval is then too narrow).")
+                        + "scatter more, and the interval is then too narrow). The interval reflects only that "
+                        + "scatter: the chance course of a young epidemic (few cases at the start, superspreading) "
+                        + "also makes one outbreak's growth differ from the rate implied by R and the generation "
+                        + "interval, so it understates the uncertainty about that rate.")
                 .paragraph("Log-linear Poisson regression of the daily cases on the day, days " + first + " to "
                         + last + "; 95% profile-likelihood interval. Pearson dispersion "
                         + TextTable.number(growth.pearsonDispersion()) + ".")

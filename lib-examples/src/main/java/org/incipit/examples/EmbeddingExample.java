@@ -5,17 +5,25 @@ import java.util.Locale;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.apache.commons.rng.simple.RandomSource;
 import org.incipit.core.branching.OffspringLaw;
+import org.incipit.core.estimate.ambiguous.AmbiguousStartEstimator;
+import org.incipit.core.estimate.ambiguous.AmbiguousStartFit;
+import org.incipit.core.estimate.ambiguous.ExposureHistory;
+import org.incipit.core.estimate.ambiguous.NaiveFit;
+import org.incipit.core.estimate.ambiguous.NaiveRule;
 import org.incipit.core.growth.EulerLotka;
 import org.incipit.core.growth.GrowthRateEstimator;
 import org.incipit.core.growth.GrowthRateFit;
 import org.incipit.core.growth.GrowthRateOptions;
 import org.incipit.core.inference.Estimate;
+import org.incipit.core.observe.AmbiguousStartCases;
 import org.incipit.core.observe.DailyCounts;
 import org.incipit.core.simulate.ExposureModel;
+import org.incipit.core.simulate.ExposureRecords;
 import org.incipit.core.simulate.OutbreakOptions;
 import org.incipit.core.simulate.OutbreakSimulator;
 import org.incipit.core.simulate.SimulatedData;
 import org.incipit.core.simulate.SimulatedOutbreak;
+import org.incipit.distributions.DelayFamilies;
 import org.incipit.distributions.GammaDelay;
 import org.incipit.distributions.LogNormalDelay;
 
@@ -60,13 +68,30 @@ public final class EmbeddingExample {
         UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
         SimulatedOutbreak outbreak = OutbreakSimulator.simulate(rng, options);
 
-        // 2. Observe: what an analyst would have (daily counts by onset day).
+        // 2. Observe: what an analyst would have: daily counts by onset day, and for 80 traced
+        //    cases every recorded contact before onset (which one infected is unknown).
         DailyCounts counts = SimulatedData.dailyCounts(outbreak);
+        ExposureRecords records = outbreak.exposures().orElseThrow();
+        AmbiguousStartCases.Builder traced = AmbiguousStartCases.builder();
+        for (int i = 0; i < 80; i++) {
+            for (int j = 0; j < records.candidateCount(i); j++) {
+                traced.addCandidate("case" + i, records.onset(i), records.candidateTime(i, j), null,
+                        AmbiguousStartCases.UNKNOWN_TOTAL);
+            }
+        }
+        AmbiguousStartCases cases = traced.build();
 
-        // 3. Estimate: growth rate by Poisson regression, then R by the Euler-Lotka equation.
+        // 3. Estimate: growth rate by Poisson regression, then R by the Euler-Lotka equation
+        //    (generation interval taken as known here: zero covariance of its parameters).
         GrowthRateFit growth = GrowthRateEstimator.fit(counts, GrowthRateOptions.defaults());
         Estimate r = growth.rateProfile();
         Estimate bigR = EulerLotka.reproductionNumberDelta(generation, new double[2][2], r);
+
+        //    Incubation period from the ambiguous exposures: lognormal by maximum likelihood,
+        //    exposures going on until onset ("open" history), then the naive nearest-contact rule.
+        AmbiguousStartFit incubation = AmbiguousStartEstimator.fit(cases, DelayFamilies.LOGNORMAL,
+                ExposureHistory.open()).requireConverged();
+        NaiveFit nearest = AmbiguousStartEstimator.naive(cases, DelayFamilies.LOGNORMAL, NaiveRule.LATEST, 0.95);
 
         // 4. Print, with the truth of the simulation.
         double trueRate = EulerLotka.growthRate(generation, 1.8);
@@ -75,6 +100,9 @@ public final class EmbeddingExample {
         out.println(line("growth rate per day", r, trueRate));
         growth.doublingTime().ifPresent(td -> out.println(line("doubling time, days", td, Math.log(2) / trueRate)));
         out.println(line("reproduction number", bigR, 1.8));
+        out.println(line("incubation mean", incubation.mean(), 5.5));
+        out.println(line("  naive (nearest)", nearest.mean(), 5.5));
+        out.println(line("p per contact", incubation.p(), 0.3));
     }
 
     private static String line(String what, Estimate e, double truth) {

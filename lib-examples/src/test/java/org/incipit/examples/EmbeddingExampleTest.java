@@ -24,6 +24,7 @@ class EmbeddingExampleTest {
         assertTrue(lines[0].startsWith("simulated "), text);
         assertTrue(text.contains("growth rate per day"), text);
         assertTrue(text.contains("reproduction number"), text);
+        assertTrue(text.contains("incubation mean") && text.contains("naive (nearest)"), text);
         // true growth rate: gamma(a = 4, b = 2/3), r = b (1.8^(1/4) - 1) = 0.1055 (Euler-Lotka closed form)
         assertTrue(text.contains("true 0.1055"), text);
         assertEquals(text, run(20240501L), "same seed, same output");
