@@ -141,4 +141,24 @@ class ChartsTest {
         decodable(png);
         assertThrows(IllegalArgumentException.class, () -> Charts.studySummary(png, "t", List.of()));
     }
+
+    @Test
+    void bandWithReferenceLineAndComparisonWithTruth() throws IOException {
+        Path band = dir.resolve("band-ref.png");
+        Charts.band(band, "R over time", "day", "R", new double[] {1, 2, 3}, new double[] {1.5, 1.6, 1.4},
+                new double[] {1.2, 1.3, 1.1}, new double[] {1.9, 2.0, 1.8}, 1.8, "true R = 1.8");
+        decodable(band);
+        Path cmp = dir.resolve("cmp-truth.png");
+        // truth outside every interval: the axis is widened to show it
+        Charts.comparison(cmp, "Mean", "days", List.of(new Comparison("nearest",
+                new Estimate(1, 0.8, 1.3, 0.95, "wald"), new Estimate(5, 4.5, 5.6, 0.95, "wald"))), 9.0);
+        decodable(cmp);
+        Charts.comparison(dir.resolve("cmp-nan.png"), "Mean", "days", List.of(new Comparison("x",
+                new Estimate(1, 0.8, 1.3, 0.95, "wald"), new Estimate(5, 4.5, 5.6, 0.95, "wald"))), Double.NaN);
+        decodable(dir.resolve("cmp-nan.png"));
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> Charts.comparison(
+                dir.resolve("bad.png"), "t", "v", List.of(new Comparison("x", new Estimate(1, 0, 2, 0.95, "w"),
+                        new Estimate(1, 0, 2, 0.95, "w"))), Double.POSITIVE_INFINITY));
+        assertEquals("truth must be finite or NaN, was Infinity", e.getMessage());
+    }
 }
