@@ -35,6 +35,10 @@ public final class AnalyseCommand extends AbstractCommand {
     @Option(names = "--intervals", paramLabel = "FILE", description = "Cases with candidate starts (CSV).")
     Path intervals;
 
+    @Option(names = "--exposure-history", paramLabel = "HISTORY",
+            description = "For --intervals: open, complete or known-total (default as in 'intervals').")
+    String exposureHistory;
+
     @Option(names = "--incubation", paramLabel = "FILE", description = "Exposure windows and onsets (CSV).")
     Path incubation;
 
@@ -90,7 +94,7 @@ public final class AnalyseCommand extends AbstractCommand {
         }
         Analysis.Inputs in = new Analysis.Inputs(counts, delays, cutoff, intervals, incubation,
                 generationMean == null ? null : generationFamily, mean, sd, mci, sci, from, to,
-                input.readOptions(), null, "Early-phase analysis", null, "from candidate start to end", null);
+                input.readOptions(), null, "Early-phase analysis", null, "from candidate start to end", null, exposureHistory);
         return finish(this, new Analysis(in, out, err()).run(), out);
     }
 

@@ -56,7 +56,7 @@ final class Analysis {
                   String generationFamily, double generationMean, double generationSd,
                   double[] generationMeanCi, double[] generationSdCi,
                   String from, String to, ReadOptions read, JsonNode truth, String title, String origin,
-                  String intervalName, String intervalTruth) {
+                  String intervalName, String intervalTruth, String exposureHistory) {
     }
 
     private final Inputs in;
@@ -356,7 +356,7 @@ final class Analysis {
 
     private void intervalsSection() throws IOException {
         AmbiguousStartCases cases = intervals.data();
-        ExposureHistory history = IntervalsCommand.history(null, cases);
+        ExposureHistory history = IntervalsCommand.history(in.exposureHistory(), cases);
         AmbiguousStartEstimator.Comparison c = AmbiguousStartEstimator.compare(cases, DelayFamilies.all(), history,
                 ModelComparison.Criterion.AIC, AmbiguousStartEstimator.Options.defaults());
         String bestName = c.ranking().best().name();
@@ -408,8 +408,8 @@ final class Analysis {
                 "Each recorded exposure transmits independently with the same probability p, and the first that "
                         + "transmits starts the interval; exposure history '" + history.label() + "'"
                         + (history.label().equals("open") ? " (exposures go on until onset, so anyone exposed long "
-                        + "enough becomes a case; the default, since the file has no exposures_total column)"
-                        : "") + "; cases are independent and their intervals follow one distribution of the family "
+                        + "enough becomes a case" + (in.exposureHistory() == null ? "; the default, since not every "
+                        + "case has an exposures_total" : "") + ")" : "") + "; cases are independent and their intervals follow one distribution of the family "
                         + "fitted; every case's whole interval is observed (no truncation at the end of the data). "
                         + "With few cases the interval of the mean is too narrow: in simulations with 60 cases it "
                         + "contained the truth about 89% of the time instead of 95%.")

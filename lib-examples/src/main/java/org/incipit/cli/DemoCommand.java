@@ -68,7 +68,7 @@ public final class DemoCommand extends AbstractCommand {
                         + "values are known and shown beside each estimate. The generation interval (gamma, mean "
                         + TextTable.number(sc.generationMean()) + " days, sd " + TextTable.number(sc.generationSd())
                         + ", each +-1 day) is given as if from an earlier study.",
-                "exposure to onset (incubation period)", "incubationPeriod");
+                "exposure to onset (incubation period)", "incubationPeriod", null);
         return AnalyseCommand.finish(this, new Analysis(in, out, err()).run(), out);
     }
 }
