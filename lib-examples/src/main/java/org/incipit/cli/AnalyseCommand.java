@@ -106,6 +106,17 @@ public final class AnalyseCommand extends AbstractCommand {
         summary(t, results, "growth", "growthRate", "growth rate (per day)");
         summary(t, results, "growth", "doublingTime", "doubling time (days)");
         summary(t, results, "reproduction", "reproductionNumber", "reproduction number");
+        JsonNode iv = results.at("/intervals/corrected");
+        if (iv.isObject()) {
+            for (JsonNode fit : iv.get("fits")) {
+                if (fit.get("family").asText().equals(iv.get("best").asText())) {
+                    JsonNode e = fit.get("mean");
+                    t.row("interval mean (days, " + fit.get("family").asText() + ")",
+                            TextTable.number(e.get("estimate").asDouble()) + " (" + bound(e.get("lower")) + " to "
+                                    + bound(e.get("upper")) + ")");
+                }
+            }
+        }
         JsonNode f = results.get("failures");
         for (JsonNode x : f) {
             t.row("failed", x.asText());
