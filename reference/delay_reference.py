@@ -1,0 +1,223 @@
+"""Independent reference for the delay likelihoods of org.incipit.core.estimate.delay.
+
+Written from the formulas (docs/methods.md sections 3-4), not from the Java code.
+Tools: python3, numpy (seeded data generation), scipy 1.17 (scipy.stats gamma, weibull_min,
+lognorm for f, F, S; scipy.integrate.quad for integrals; scipy.optimize.minimize,
+Nelder-Mead from several starts then polished, for the maxima).
+
+Parameters: gamma (shape, rate); Weibull (shape, scale); lognormal (meanLog, sdLog).
+
+Data sets (invented scenario, seeded; times in days):
+  truncated.csv   continuous pairs observed only if secondary <= T = 40:
+                  l = sum log f(d_i) - log F(T - s_i)
+  daily.csv       both times known only to the day (day numbers p, q), observed only if
+                  q <= T = 40: primary uniform in [p, p + 1), secondary in [q, q + 1);
+                  P(k) = int_0^1 [F(k + 1 - u) - F(k - u)] du for k = q - p,
+                  truncation A(K) = P(q - p <= K) = int_0^1 F(K + 1 - u) du, K = T - p;
+                  l = sum log P(k_i) - log A(T - p_i)
+  censored.csv    continuous pairs followed to T = 40, secondary missing if after T:
+                  l = sum_obs log f(d_i) + sum_cens log S(T - s_i)
+  growth.csv      delays only, primaries growing at r = 0.1 per day:
+                  l = sum [log f(d_i) - r d_i] - n log M(-r), M(-r) = int exp(-r x) f(x) dx
+  incubation.csv  exposure window [a, b], onset o; variants
+                  interval: log[F(o - a) - F(o - b)]  (log f(o - a) if a = b)
+                  uniform:  interval - log(b - a)       (log f(o - a) if a = b)
+                  growth:   log[ r e^{r o} / (e^{r b} - e^{r a}) int_{o-b}^{o-a} e^{-r x} f(x) dx ]
+                            with r = 0.1 (log f(o - a) if a = b)
+Writes into lib-core/src/test/resources/org/incipit/core/estimate/delay/:
+  the five data CSVs and maxima.csv (dataset, variant, family, param1, param2, loglik).
+
+Run from the repository root:  python3 reference/delay_reference.py
+"""
+import os
+import numpy as np
+import scipy
+import scipy.stats as st
+import scipy.optimize as so
+import scipy.integrate as si
+
+OUT = "lib-core/src/test/resources/org/incipit/core/estimate/delay"
+os.makedirs(OUT, exist_ok=True)
+HEADER = ("# tool: python3 numpy %s scipy %s; call: python3 reference/delay_reference.py\n"
+          % (np.__version__, scipy.__version__))
+T = 40.0
+R_GROWTH = 0.1
+
+
+def dist(family, p1, p2):
+    if family == "gamma":
+        return st.gamma(p1, scale=1.0 / p2)
+    if family == "weibull":
+        return st.weibull_min(p1, scale=p2)
+    return st.lognorm(p2, scale=np.exp(p1))
+
+
+def growth_primaries(rng, r, t_end, n):
+    u = rng.random(n)
+    return np.log1p(u * np.expm1(r * t_end)) / r
+
+
+rng = np.random.default_rng(20261201)
+
+# 1. continuous right-truncated pairs: delays gamma(shape 2.5, rate 0.5), primaries growing at 0.15
+trunc = []
+while len(trunc) < 400:
+    s = growth_primaries(rng, 0.15, T, 1)[0]
+    d = rng.gamma(2.5, 2.0)
+    if s + d <= T:
+        trunc.append((s, s + d))
+trunc = np.array(trunc)
+
+# 2. daily right-truncated pairs: delays lognormal(1.5, 0.5)
+daily = []
+while len(daily) < 400:
+    s = growth_primaries(rng, 0.15, T, 1)[0]
+    d = rng.lognormal(1.5, 0.5)
+    p, q = np.floor(s), np.floor(s + d)
+    if q <= T:
+        daily.append((p, q))
+daily = np.array(daily)
+
+# 3. right-censored pairs: delays Weibull(shape 1.8, scale 6), followed up to T
+cens = []
+for s in growth_primaries(rng, 0.12, T, 300):
+    d = 6.0 * rng.weibull(1.8)
+    cens.append((s, s + d if s + d <= T else np.nan))
+cens = np.array(cens)
+
+# 4. growth-weighted delays: intrinsic gamma(2, rate 0.4) tilted by r = 0.1 is gamma(2, rate 0.5)
+growth = rng.gamma(2.0, 1.0 / 0.5, size=300)
+
+# 5. incubation windows: exposure uniform in [a, a + w], w in {0, ..., 5}, lognormal(1.6, 0.45)
+inc = []
+for i in range(200):
+    a = float(rng.integers(0, 30))
+    w = float(rng.integers(0, 6))
+    e = a + w * rng.random()
+    o = e + rng.lognormal(1.6, 0.45)
+    inc.append((a, a + w, o))
+inc = np.array(inc)
+
+
+def write(name, cols, rows, call):
+    with open(os.path.join(OUT, name), "w") as f:
+        f.write(HEADER)
+        f.write("# " + call + "\n")
+        f.write(",".join(cols) + "\n")
+        for row in rows:
+            f.write(",".join("" if np.isnan(v) else repr(float(v)) for v in row) + "\n")
+
+
+write("truncated.csv", ["primary", "secondary"], trunc,
+      "pairs with secondary <= 40; delays gamma(2.5, rate 0.5); primaries density ~ exp(0.15 s) on [0, 40]")
+write("daily.csv", ["primary_day", "secondary_day"], daily,
+      "day numbers with secondary_day <= 40; delays lognormal(1.5, 0.5); primaries ~ exp(0.15 s)")
+write("censored.csv", ["primary", "secondary"], cens,
+      "followed to 40, secondary empty = not observed by 40; delays Weibull(1.8, 6); primaries ~ exp(0.12 s)")
+write("growth.csv", ["delay"], growth.reshape(-1, 1),
+      "delays gamma(2, rate 0.5) = gamma(2, rate 0.4) tilted by r = 0.1")
+write("incubation.csv", ["exposure_from", "exposure_to", "onset"], inc,
+      "exposure uniform in [a, b], b - a in {0..5}; incubation lognormal(1.6, 0.45)")
+
+
+def ll_truncated(D):
+    s, q = trunc[:, 0], trunc[:, 1]
+    return np.sum(D.logpdf(q - s) - D.logcdf(T - s))
+
+
+def P_day(D, k):
+    g = lambda u: D.cdf(k + 1 - u) - D.cdf(k - u)
+    return si.quad(g, 0, 1, epsabs=0, epsrel=1e-13, limit=200)[0]
+
+
+def A_day(D, K):
+    return si.quad(lambda u: D.cdf(K + 1 - u), 0, 1, epsabs=0, epsrel=1e-13, limit=200)[0]
+
+
+def ll_daily(D):
+    p, q = daily[:, 0], daily[:, 1]
+    total = 0.0
+    for k, c in zip(*np.unique(q - p, return_counts=True)):
+        total += c * np.log(P_day(D, k))
+    for K, c in zip(*np.unique(T - p, return_counts=True)):
+        total -= c * np.log(A_day(D, K))
+    return total
+
+
+def ll_censored(D):
+    s, q = cens[:, 0], cens[:, 1]
+    obs = ~np.isnan(q)
+    return np.sum(D.logpdf(q[obs] - s[obs])) + np.sum(D.logsf(T - s[~obs]))
+
+
+def laplace(D, r):
+    return si.quad(lambda x: np.exp(-r * x) * D.pdf(x), 0, np.inf, epsabs=0, epsrel=1e-13, limit=400)[0]
+
+
+def ll_growth(D):
+    return np.sum(D.logpdf(growth) - R_GROWTH * growth) - len(growth) * np.log(laplace(D, R_GROWTH))
+
+
+def ll_incubation(D, variant):
+    total = 0.0
+    for a, b, o in inc:
+        if a == b:
+            total += D.logpdf(o - a)
+            continue
+        if variant == "interval":
+            total += np.log(D.cdf(o - a) - D.cdf(o - b))
+        elif variant == "uniform":
+            total += np.log(D.cdf(o - a) - D.cdf(o - b)) - np.log(b - a)
+        else:
+            r = R_GROWTH
+            integral = si.quad(lambda x: np.exp(-r * x) * D.pdf(x), o - b, o - a,
+                               epsabs=0, epsrel=1e-13, limit=200)[0]
+            total += np.log(r) + r * o - np.log(np.exp(r * b) - np.exp(r * a)) + np.log(integral)
+    return total
+
+
+def fit(ll, family, starts):
+    def neg(x):
+        if family == "lognormal":
+            p1, p2 = x[0], np.exp(x[1])
+        else:
+            p1, p2 = np.exp(x[0]), np.exp(x[1])
+        with np.errstate(all="ignore"):
+            v = ll(dist(family, p1, p2))
+        return -v if np.isfinite(v) else 1e300
+    best = None
+    for s0 in starts:
+        x0 = [s0[0] if family == "lognormal" else np.log(s0[0]), np.log(s0[1])]
+        r = so.minimize(neg, x0, method="Nelder-Mead",
+                        options={"xatol": 1e-10, "fatol": 1e-12, "maxiter": 20000, "maxfev": 40000})
+        r = so.minimize(neg, r.x, method="Nelder-Mead",
+                        options={"xatol": 1e-12, "fatol": 1e-13, "maxiter": 20000, "maxfev": 40000})
+        if best is None or r.fun < best.fun:
+            best = r
+    x = best.x
+    p1 = x[0] if family == "lognormal" else np.exp(x[0])
+    return p1, np.exp(x[1]), -best.fun
+
+
+STARTS = {"gamma": [(2.0, 0.4), (1.0, 0.2), (5.0, 1.0)],
+          "weibull": [(1.5, 5.0), (1.0, 3.0), (3.0, 8.0)],
+          "lognormal": [(1.5, 0.5), (1.0, 1.0), (2.0, 0.3)]}
+
+rows = []
+for family in ["gamma", "weibull", "lognormal"]:
+    for name, ll in [("truncated", ll_truncated), ("daily", ll_daily), ("censored", ll_censored),
+                     ("growth", ll_growth)]:
+        p1, p2, v = fit(ll, family, STARTS[family])
+        rows.append((name, "-", family, p1, p2, v))
+    for variant in ["interval", "uniform", "growth"]:
+        p1, p2, v = fit(lambda D: ll_incubation(D, variant), family, STARTS[family])
+        rows.append(("incubation", variant, family, p1, p2, v))
+
+with open(os.path.join(OUT, "maxima.csv"), "w") as f:
+    f.write(HEADER)
+    f.write("# maxima of the log-likelihoods in the header of reference/delay_reference.py; "
+            "param1/param2 = gamma shape/rate, Weibull shape/scale, lognormal meanLog/sdLog; "
+            "cut-off T = 40, r = 0.1\n")
+    f.write("dataset,variant,family,param1,param2,loglik\n")
+    for row in rows:
+        f.write("%s,%s,%s,%.15g,%.15g,%.15g\n" % row)
