@@ -71,15 +71,19 @@ class SurvregReferenceTest {
         DelayFit fit = DelayEstimator.intervalCensored(data(name), family, DelayOptions.defaults());
         assertTrue(fit.converged(), fit.message());
         assertRelative(TestData.num(ref, "loglik"), fit.logLikelihood(), 1e-9, "log-likelihood");
-        double p1 = fit.parameters().get(0).estimate();
-        double p2 = fit.parameters().get(1).estimate();
+        boolean weibull = dist.equals("weibull");
+        double p1 = fit.parameter(weibull ? "shape" : "meanLog").estimate();
+        double p2 = fit.parameter(weibull ? "scale" : "sdLog").estimate();
         assertRelative(TestData.num(ref, "param1"), p1, 1e-6, "param1");
         assertRelative(TestData.num(ref, "param2"), p2, 1e-6, "param2");
         double[][] cov = fit.fit().unconstrainedCovariance();
         // unconstrained = (log shape, log scale) for the Weibull, (meanLog, log sdLog) for the lognormal
-        double seIntercept = Math.sqrt(dist.equals("weibull") ? cov[1][1] : cov[0][0]);
-        double seLogScale = Math.sqrt(dist.equals("weibull") ? cov[0][0] : cov[1][1]);
-        double covMixed = dist.equals("weibull") ? -cov[0][1] : cov[0][1];
+        // survreg intercept = log scale (Weibull) or meanLog; survreg log scale = -log shape or log sdLog
+        int iIntercept = fit.parameterNames().indexOf(weibull ? "scale" : "meanLog");
+        int iLogScale = fit.parameterNames().indexOf(weibull ? "shape" : "sdLog");
+        double seIntercept = Math.sqrt(cov[iIntercept][iIntercept]);
+        double seLogScale = Math.sqrt(cov[iLogScale][iLogScale]);
+        double covMixed = (weibull ? -1 : 1) * cov[iIntercept][iLogScale];
         assertRelative(TestData.num(ref, "se_intercept"), seIntercept, 1e-4, "se(intercept)");
         assertRelative(TestData.num(ref, "se_log_scale"), seLogScale, 1e-4, "se(log scale)");
         assertEquals(TestData.num(ref, "cov_intercept_log_scale"), covMixed,
