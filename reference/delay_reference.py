@@ -3,7 +3,7 @@
 Written from the formulas (docs/methods.md sections 3-4), not from the Java code.
 Tools: python3, numpy (seeded data generation), scipy 1.17 (scipy.stats gamma, weibull_min,
 lognorm for f, F, S; scipy.integrate.quad for integrals; scipy.optimize.minimize,
-Nelder-Mead from several starts then polished, for the maxima).
+Nelder-Mead from a start near the truth, restarted once from its result, for the maxima).
 
 Parameters: gamma (shape, rate); Weibull (shape, scale); lognormal (meanLog, sdLog).
 
@@ -30,6 +30,7 @@ Writes into lib-core/src/test/resources/org/incipit/core/estimate/delay/:
 Run from the repository root:  python3 reference/delay_reference.py
 """
 import os
+import sys
 import numpy as np
 import scipy
 import scipy.stats as st
@@ -186,12 +187,13 @@ def fit(ll, family, starts):
             v = ll(dist(family, p1, p2))
         return -v if np.isfinite(v) else 1e300
     best = None
-    for s0 in starts:
+    for s0 in starts[:1]:
         x0 = [s0[0] if family == "lognormal" else np.log(s0[0]), np.log(s0[1])]
         r = so.minimize(neg, x0, method="Nelder-Mead",
-                        options={"xatol": 1e-10, "fatol": 1e-12, "maxiter": 20000, "maxfev": 40000})
+                        options={"xatol": 1e-9, "fatol": 1e-11, "maxiter": 4000, "maxfev": 8000})
+        # restart from the result (guards against a collapsed simplex)
         r = so.minimize(neg, r.x, method="Nelder-Mead",
-                        options={"xatol": 1e-12, "fatol": 1e-13, "maxiter": 20000, "maxfev": 40000})
+                        options={"xatol": 1e-10, "fatol": 1e-12, "maxiter": 4000, "maxfev": 8000})
         if best is None or r.fun < best.fun:
             best = r
     x = best.x
@@ -209,9 +211,11 @@ for family in ["gamma", "weibull", "lognormal"]:
                      ("growth", ll_growth)]:
         p1, p2, v = fit(ll, family, STARTS[family])
         rows.append((name, "-", family, p1, p2, v))
+        print(name, family, p1, p2, v, file=sys.stderr, flush=True)
     for variant in ["interval", "uniform", "growth"]:
         p1, p2, v = fit(lambda D: ll_incubation(D, variant), family, STARTS[family])
         rows.append(("incubation", variant, family, p1, p2, v))
+        print("incubation", variant, family, p1, p2, v, file=sys.stderr, flush=True)
 
 with open(os.path.join(OUT, "maxima.csv"), "w") as f:
     f.write(HEADER)
