@@ -205,8 +205,11 @@ STARTS = {"gamma": [(2.0, 0.4), (1.0, 0.2), (5.0, 1.0)],
           "weibull": [(1.5, 5.0), (1.0, 3.0), (3.0, 8.0)],
           "lognormal": [(1.5, 0.5), (1.0, 1.0), (2.0, 0.3)]}
 
+# Optional arguments: family names to compute (rows printed to stdout as CSV, maxima.csv not
+# written), e.g. to run the families in parallel and paste the rows into maxima.csv.
+FAMILIES = sys.argv[1:] or ["gamma", "weibull", "lognormal"]
 rows = []
-for family in ["gamma", "weibull", "lognormal"]:
+for family in FAMILIES:
     for name, ll in [("truncated", ll_truncated), ("daily", ll_daily), ("censored", ll_censored),
                      ("growth", ll_growth)]:
         p1, p2, v = fit(ll, family, STARTS[family])
@@ -216,6 +219,11 @@ for family in ["gamma", "weibull", "lognormal"]:
         p1, p2, v = fit(lambda D: ll_incubation(D, variant), family, STARTS[family])
         rows.append(("incubation", variant, family, p1, p2, v))
         print("incubation", variant, family, p1, p2, v, file=sys.stderr, flush=True)
+
+if sys.argv[1:]:
+    for row in rows:
+        print("%s,%s,%s,%.15g,%.15g,%.15g" % row)
+    sys.exit(0)
 
 with open(os.path.join(OUT, "maxima.csv"), "w") as f:
     f.write(HEADER)

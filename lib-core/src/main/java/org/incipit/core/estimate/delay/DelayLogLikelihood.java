@@ -2,7 +2,12 @@ package org.incipit.core.estimate.delay;
 
 import java.util.Arrays;
 
+import org.apache.commons.numbers.gamma.Digamma;
+import org.apache.commons.numbers.gamma.Erfc;
+import org.apache.commons.numbers.gamma.Erfcx;
+import org.apache.commons.numbers.gamma.LogGamma;
 import org.incipit.core.likelihood.LogLikelihood;
+import org.incipit.distributions.DelayFamilies;
 import org.incipit.distributions.DelayFamily;
 import org.incipit.distributions.ParametricDelay;
 
@@ -49,6 +54,21 @@ final class DelayLogLikelihood implements LogLikelihood {
     // growth tilt normaliser: -tiltWeight * log M(-tiltRate)
     private final double tiltRate;
     private final double tiltWeight;
+    // closed-form paths: density terms through sufficient statistics (gamma, lognormal), and
+    // lognormal cdf/survival terms fused over precomputed log-delays
+    private final Kind kind;
+    private final double densTotal;  // sum of density weights
+    private final double densLog;    // sum w log x
+    private final double densLog2;   // sum w (log x)^2 (lognormal)
+    private final double densLin;    // sum w x (gamma)
+    private final double[] cdfLogX;  // log of cdfX (lognormal)
+    private final double[] survLogX; // log of survX (lognormal)
+
+    private enum Kind { GENERIC, GAMMA, LOGNORMAL }
+
+    private static final double SQRT2 = Math.sqrt(2);
+    private static final double HALF_LOG_2PI = 0.5 * Math.log(2 * Math.PI);
+    private static final double SQRT_2_OVER_PI = Math.sqrt(2 / Math.PI);
 
     private DelayLogLikelihood(Builder b) {
         this.family = b.family;
@@ -81,6 +101,134 @@ final class DelayLogLikelihood implements LogLikelihood {
         exposureRate = b.exposureRate;
         tiltRate = b.tiltRate;
         tiltWeight = b.tiltWeight;
+        kind = !b.closedForm ? Kind.GENERIC : family == DelayFamilies.LOGNORMAL ? Kind.LOGNORMAL
+                : family == DelayFamilies.GAMMA ? Kind.GAMMA : Kind.GENERIC;
+        double tw = 0;
+        double sl = 0;
+        double sl2 = 0;
+        double sx = 0;
+        for (int i = 0; i < densX.length; i++) {
+            double lx = Math.log(densX[i]);
+            tw += densW[i];
+            sl += densW[i] * lx;
+            sl2 += densW[i] * lx * lx;
+            sx += densW[i] * densX[i];
+        }
+        densTotal = tw;
+        densLog = sl;
+        densLog2 = sl2;
+        densLin = sx;
+        cdfLogX = logs(cdfX);
+        survLogX = logs(survX);
+    }
+
+    /**
+     * Analytic Hessian only for the closed-form lognormal path with density, log-cdf and
+     * log-survival terms (the right-truncated and right-censored fits of exact pairs).
+     */
+    @Override
+    public boolean hasHessian() {
+        return kind == Kind.LOGNORMAL && intL.length == 0 && dayK.length == 0 && dayCdfK.length == 0
+                && daySurvK.length == 0 && expLo.length == 0 && tiltWeight == 0;
+    }
+
+    /**
+     * Second derivatives in (meanLog, sdLog): with z = (log x - mu)/sigma and
+     * lambda = phi/Phi, d log Phi / dz = lambda, d^2 log Phi / dz^2 = -lambda (z + lambda).
+     */
+    @Override
+    public void hessian(double[] theta, double[] out) {
+        if (!hasHessian()) {
+            throw new UnsupportedOperationException("no analytic Hessian for this likelihood");
+        }
+        double mu = theta[0];
+        double sigma = theta[1];
+        double s2 = sigma * sigma;
+        double hmm = 0;
+        double hms = 0;
+        double hss = 0;
+        if (densX.length > 0) {
+            double q = densLog2 - 2 * mu * densLog + mu * mu * densTotal;
+            hmm += -densTotal / s2;
+            hms += -2 * (densLog - mu * densTotal) / (s2 * sigma);
+            hss += densTotal / s2 - 3 * q / (s2 * s2);
+        }
+        for (int i = 0; i < cdfLogX.length; i++) {
+            double z = (cdfLogX[i] - mu) / sigma;
+            double lambda = millsInverse(z);
+            double d2 = -lambda * (z + lambda);
+            double w = cdfW[i] / s2;
+            hmm += w * d2;
+            hms += w * (d2 * z + lambda);
+            hss += w * (d2 * z * z + 2 * lambda * z);
+        }
+        for (int i = 0; i < survLogX.length; i++) {
+            double v = -(survLogX[i] - mu) / sigma;
+            double lambda = millsInverse(v);
+            double d2 = -lambda * (v + lambda);
+            double w = survW[i] / s2;
+            hmm += w * d2;
+            hms += -w * (d2 * v + lambda);
+            hss += w * (d2 * v * v + 2 * lambda * v);
+        }
+        out[0] = hmm;
+        out[1] = hms;
+        out[2] = hms;
+        out[3] = hss;
+    }
+
+    private static double millsInverse(double w) {
+        if (w < -5) {
+            return SQRT_2_OVER_PI / Erfcx.value(-w / SQRT2);
+        }
+        return Math.exp(-0.5 * w * w - HALF_LOG_2PI) / (0.5 * Erfc.value(-w / SQRT2));
+    }
+
+    private static double[] logs(double[] x) {
+        double[] l = new double[x.length];
+        for (int i = 0; i < x.length; i++) {
+            l[i] = Math.log(x[i]);
+        }
+        return l;
+    }
+
+    /** Same likelihood without the closed-form paths (for tests). */
+    DelayLogLikelihood generic() {
+        return new DelayLogLikelihood(this);
+    }
+
+    private DelayLogLikelihood(DelayLogLikelihood o) {
+        family = o.family;
+        k = o.k;
+        constant = o.constant;
+        densX = o.densX;
+        densW = o.densW;
+        survX = o.survX;
+        survW = o.survW;
+        cdfX = o.cdfX;
+        cdfW = o.cdfW;
+        intL = o.intL;
+        intR = o.intR;
+        intW = o.intW;
+        dayK = o.dayK;
+        dayW = o.dayW;
+        dayCdfK = o.dayCdfK;
+        dayCdfW = o.dayCdfW;
+        daySurvK = o.daySurvK;
+        daySurvW = o.daySurvW;
+        expLo = o.expLo;
+        expHi = o.expHi;
+        expW = o.expW;
+        exposureRate = o.exposureRate;
+        tiltRate = o.tiltRate;
+        tiltWeight = o.tiltWeight;
+        kind = Kind.GENERIC;
+        densTotal = o.densTotal;
+        densLog = o.densLog;
+        densLog2 = o.densLog2;
+        densLin = o.densLin;
+        cdfLogX = o.cdfLogX;
+        survLogX = o.survLogX;
     }
 
     static Builder builder(DelayFamily family) {
@@ -125,22 +273,20 @@ final class DelayLogLikelihood implements LogLikelihood {
             Arrays.fill(g, 0.0);
         }
         double sum = constant;
-        for (int i = 0; i < densX.length; i++) {
-            sum += densW[i] * f.logDensity(densX[i]);
-            if (g != null) {
-                addScaled(g, densW[i], f.logDensityGradient(densX[i]));
+        switch (kind) {
+            case LOGNORMAL -> sum += lognormalTerms(theta[0], theta[1], g);
+            case GAMMA -> {
+                sum += gammaDensityTerms(theta[0], theta[1], g);
+                sum += genericCdfSurvival(f, g);
             }
-        }
-        for (int i = 0; i < survX.length; i++) {
-            sum += survW[i] * f.logSurvival(survX[i]);
-            if (g != null && survX[i] > 0) {
-                addScaled(g, survW[i], f.logSurvivalGradient(survX[i]));
-            }
-        }
-        for (int i = 0; i < cdfX.length; i++) {
-            sum += cdfW[i] * f.logCdf(cdfX[i]);
-            if (g != null) {
-                addScaled(g, cdfW[i], f.logCdfGradient(cdfX[i]));
+            default -> {
+                for (int i = 0; i < densX.length; i++) {
+                    sum += densW[i] * f.logDensity(densX[i]);
+                    if (g != null) {
+                        addScaled(g, densW[i], f.logDensityGradient(densX[i]));
+                    }
+                }
+                sum += genericCdfSurvival(f, g);
             }
         }
         double[] tmp = g == null ? null : new double[k];
@@ -184,6 +330,98 @@ final class DelayLogLikelihood implements LogLikelihood {
         }
         if (Double.isNaN(sum)) {
             return Double.NEGATIVE_INFINITY;
+        }
+        return sum;
+    }
+
+    private double genericCdfSurvival(ParametricDelay f, double[] g) {
+        double sum = 0;
+        for (int i = 0; i < survX.length; i++) {
+            sum += survW[i] * f.logSurvival(survX[i]);
+            if (g != null) {
+                addScaled(g, survW[i], f.logSurvivalGradient(survX[i]));
+            }
+        }
+        for (int i = 0; i < cdfX.length; i++) {
+            sum += cdfW[i] * f.logCdf(cdfX[i]);
+            if (g != null) {
+                addScaled(g, cdfW[i], f.logCdfGradient(cdfX[i]));
+            }
+        }
+        return sum;
+    }
+
+    /**
+     * Gamma(shape a, rate b) density terms from sufficient statistics:
+     * sum w [a log b - lnGamma(a) + (a - 1) log x - b x].
+     */
+    private double gammaDensityTerms(double a, double b, double[] g) {
+        if (densX.length == 0) {
+            return 0;
+        }
+        double lb = Math.log(b);
+        double v = densTotal * (a * lb - LogGamma.value(a)) + (a - 1) * densLog - b * densLin;
+        if (g != null) {
+            g[0] += densTotal * (lb - Digamma.value(a)) + densLog;
+            g[1] += densTotal * a / b - densLin;
+        }
+        return v;
+    }
+
+    /**
+     * Lognormal(mu, sigma): density terms from sums of log x and (log x)^2; log-cdf and
+     * log-survival terms fused over precomputed log x, with log Phi(w) and phi(w)/Phi(w) from
+     * erfc (erfcx below w = -5), the formulas of the distribution layer.
+     */
+    private double lognormalTerms(double mu, double sigma, double[] g) {
+        double sum = 0;
+        double g0 = 0;
+        double g1 = 0;
+        if (densX.length > 0) {
+            double q = densLog2 - 2 * mu * densLog + mu * mu * densTotal; // sum w (log x - mu)^2
+            sum += -densLog - densTotal * (Math.log(sigma) + HALF_LOG_2PI) - 0.5 * q / (sigma * sigma);
+            g0 += (densLog - mu * densTotal) / (sigma * sigma);
+            g1 += -densTotal / sigma + q / (sigma * sigma * sigma);
+        }
+        for (int i = 0; i < cdfLogX.length; i++) {
+            double w = (cdfLogX[i] - mu) / sigma;
+            double lp;
+            double lambda;
+            if (w < -5) {
+                double e = Erfcx.value(-w / SQRT2);
+                lp = Math.log(0.5 * e) - 0.5 * w * w;
+                lambda = SQRT_2_OVER_PI / e;
+            } else {
+                double c = 0.5 * Erfc.value(-w / SQRT2);
+                lp = Math.log(c);
+                lambda = Math.exp(-0.5 * w * w - HALF_LOG_2PI) / c;
+            }
+            sum += cdfW[i] * lp;
+            double r = cdfW[i] * lambda / sigma;
+            g0 -= r;
+            g1 -= r * w;
+        }
+        for (int i = 0; i < survLogX.length; i++) {
+            double w = -(survLogX[i] - mu) / sigma; // log S(x) = log Phi(-w(x))
+            double lp;
+            double lambda;
+            if (w < -5) {
+                double e = Erfcx.value(-w / SQRT2);
+                lp = Math.log(0.5 * e) - 0.5 * w * w;
+                lambda = SQRT_2_OVER_PI / e;
+            } else {
+                double c = 0.5 * Erfc.value(-w / SQRT2);
+                lp = Math.log(c);
+                lambda = Math.exp(-0.5 * w * w - HALF_LOG_2PI) / c;
+            }
+            sum += survW[i] * lp;
+            double r = survW[i] * lambda / sigma;
+            g0 += r;
+            g1 -= r * w;
+        }
+        if (g != null) {
+            g[0] += g0;
+            g[1] += g1;
         }
         return sum;
     }
@@ -465,29 +703,32 @@ final class DelayLogLikelihood implements LogLikelihood {
 
     // ---- merging equal observations ----
 
+    /** Sorts terms and merges equal x with equal-sign weights into one term (primitive sorts by weight group). */
     private static double[][] merge(Grow xs, Grow ws) {
         double[] x = xs.toArray();
         double[] w = ws.toArray();
-        int n = x.length;
-        Integer[] perm = new Integer[n];
-        for (int i = 0; i < n; i++) {
-            perm[i] = i;
+        java.util.TreeMap<Double, Grow> groups = new java.util.TreeMap<>();
+        for (int i = 0; i < x.length; i++) {
+            groups.computeIfAbsent(w[i], key -> new Grow()).add(x[i]);
         }
-        Arrays.sort(perm, (a, b) -> Double.compare(x[a], x[b]));
-        double[] mx = new double[n];
-        double[] mw = new double[n];
-        int m = 0;
-        for (int i = 0; i < n; i++) {
-            int j = perm[i];
-            if (m > 0 && mx[m - 1] == x[j]) {
-                mw[m - 1] += w[j];
-            } else {
-                mx[m] = x[j];
-                mw[m] = w[j];
-                m++;
+        Grow mx = new Grow();
+        Grow mw = new Grow();
+        for (java.util.Map.Entry<Double, Grow> e : groups.entrySet()) {
+            double[] v = e.getValue().toArray();
+            Arrays.sort(v);
+            double weight = e.getKey();
+            int i = 0;
+            while (i < v.length) {
+                int j = i;
+                while (j < v.length && v[j] == v[i]) {
+                    j++;
+                }
+                mx.add(v[i]);
+                mw.add(weight * (j - i));
+                i = j;
             }
         }
-        return new double[][] {Arrays.copyOf(mx, m), Arrays.copyOf(mw, m)};
+        return new double[][] {mx.toArray(), mw.toArray()};
     }
 
     private static int[] toInt(double[] x) {
@@ -540,6 +781,7 @@ final class DelayLogLikelihood implements LogLikelihood {
         private double exposureRate = Double.NaN;
         private double tiltRate;
         private double tiltWeight;
+        private boolean closedForm = true;
 
         private Builder(DelayFamily family) {
             this.family = family;

@@ -34,9 +34,12 @@ public record DelayOptions(double level, List<Double> quantiles, Maximiser maxim
         }
     }
 
-    /** @return level 0.95, {@link #DEFAULT_QUANTILES}, BFGS */
+    /**
+     * @return level 0.95, {@link #DEFAULT_QUANTILES}, the engine's Newton maximiser (analytic
+     *     Hessian where the likelihood has one, else differences of the analytic gradient)
+     */
     public static DelayOptions defaults() {
-        return new DelayOptions(0.95, DEFAULT_QUANTILES, Maximiser.bfgs());
+        return new DelayOptions(0.95, DEFAULT_QUANTILES, Maximiser.newton());
     }
 
     /** @param level coverage in (0, 1) @return a copy with that level */
