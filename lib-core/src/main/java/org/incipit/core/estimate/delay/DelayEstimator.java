@@ -5,6 +5,7 @@ import java.util.List;
 
 import org.incipit.core.EstimationException;
 import org.incipit.core.inference.ModelComparison;
+import org.incipit.core.likelihood.MaximumLikelihoodFit;
 import org.incipit.core.observe.CensoredDelays;
 import org.incipit.core.observe.DelayPairs;
 import org.incipit.distributions.DelayFamily;
@@ -66,9 +67,36 @@ public final class DelayEstimator {
             throw new IllegalArgumentException("a right-truncated fit takes observed pairs only, but "
                     + pairs.censoredCount() + " pairs are censored (if every primary is known, use censored())");
         }
+        int n = pairs.size();
+        double[] guess = new double[n];
+        DelayLogLikelihood full = truncatedLikelihood(pairs, family, t, 1, guess);
+        List<double[]> starts = new ArrayList<>();
+        if (n > PILOT_THRESHOLD) {
+            // pilot fit on a systematic subsample gives a start near the maximum, so the full
+            // data need only a few Newton steps
+            int stride = n / PILOT_SIZE;
+            double[] g = new double[(n + stride - 1) / stride];
+            DelayLogLikelihood pilot = truncatedLikelihood(pairs, family, t, stride, g);
+            double[] ms = DelayFits.meanSd(g);
+            MaximumLikelihoodFit pf = DelayFits.maximise(family, pilot, DelayFits.starts(family, ms[0], ms[1]),
+                    g.length, options);
+            if (pf.converged()) {
+                starts.add(pf.naturalEstimate());
+            }
+        }
+        double[] ms = DelayFits.meanSd(guess);
+        starts.addAll(DelayFits.starts(family, ms[0], ms[1]));
+        return DelayFits.summarise(family, DelayFits.maximise(family, full, starts, n, options), options);
+    }
+
+    /** Data sets larger than this start from a pilot fit to about {@link #PILOT_SIZE} pairs. */
+    static final int PILOT_THRESHOLD = 20_000;
+    static final int PILOT_SIZE = 5_000;
+
+    private static DelayLogLikelihood truncatedLikelihood(DelayPairs pairs, DelayFamily family, double t, int stride,
+                                                          double[] guess) {
         DelayLogLikelihood.Builder b = DelayLogLikelihood.builder(family);
-        double[] guess = new double[pairs.size()];
-        for (int i = 0; i < pairs.size(); i++) {
+        for (int i = 0, j = 0; i < pairs.size(); i += stride, j++) {
             double s = pairs.primary(i);
             double q = pairs.secondary(i);
             if (pairs.isDaily(i)) {
@@ -76,14 +104,14 @@ public final class DelayEstimator {
                 int k = day(pairs, i, q, "secondary") - p;
                 int cut = integerCutoff(t);
                 b.dailyMass(k).dailyCdf(cut - p, -1);
-                guess[i] = Math.max(k, 0.5);
+                guess[j] = Math.max(k, 0.5);
             } else {
                 double d = positiveDelay(pairs, i, q - s);
                 b.density(d).cdf(t - s, -1);
-                guess[i] = d;
+                guess[j] = d;
             }
         }
-        return fit(b.build(), family, guess, pairs.size(), options);
+        return b.build();
     }
 
     /**
