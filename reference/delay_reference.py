@@ -96,7 +96,9 @@ for i in range(200):
     w = float(rng.integers(0, 6))
     e = a + w * rng.random()
     o = e + rng.lognormal(1.6, 0.45)
-    inc.append((a, a + w, o))
+    # a window reaching past the onset is cut at the onset (exposure after onset cannot have
+    # caused it; the observation type requires exposure_to <= onset)
+    inc.append((a, min(a + w, o), o))
 inc = np.array(inc)
 
 
@@ -118,7 +120,7 @@ write("censored.csv", ["primary", "secondary"], cens,
 write("growth.csv", ["delay"], growth.reshape(-1, 1),
       "delays gamma(2, rate 0.5) = gamma(2, rate 0.4) tilted by r = 0.1")
 write("incubation.csv", ["exposure_from", "exposure_to", "onset"], inc,
-      "exposure uniform in [a, b], b - a in {0..5}; incubation lognormal(1.6, 0.45)")
+      "exposure uniform in [a, a + w], w in {0..5}, window cut at the onset; incubation lognormal(1.6, 0.45)")
 
 
 def ll_truncated(D):
