@@ -6,6 +6,7 @@ import java.util.function.DoubleFunction;
 
 import org.apache.commons.statistics.distribution.NormalDistribution;
 import org.incipit.core.EstimationException;
+import org.incipit.core.growth.EulerLotka;
 import org.incipit.core.inference.Estimate;
 import org.incipit.core.likelihood.MaximumLikelihoodFit;
 import org.incipit.core.likelihood.ParameterTransform;
@@ -40,7 +41,10 @@ public final class GrowthWeightedEstimator {
      */
     public static GrowthWeightedFit fit(double[] delays, DelayFamily family, Estimate growthRate,
                                         DelayOptions options) {
-        Composer c = new Composer(delays, family, growthRate, options);
+        return fit(new Composer(delays, family, growthRate, options), family, growthRate);
+    }
+
+    private static GrowthWeightedFit fit(Composer c, DelayFamily family, Estimate growthRate) {
         List<Estimate> params = new ArrayList<>();
         for (int i = 0; i < family.dimension(); i++) {
             int j = i;
@@ -55,7 +59,7 @@ public final class GrowthWeightedEstimator {
     /**
      * Backward-traced generation or serial intervals: fits the observed intervals naively and
      * as the tilt of the intrinsic interval by r, and reports R = 1 / M(&minus;r) for both
-     * (docs/methods.md section 3). M is the family's {@code laplaceTransform(r)}.
+     * (docs/methods.md section 3), computed by {@link EulerLotka#reproductionNumber}.
      *
      * @param intervals  observed backward-traced intervals in days, finite and &gt; 0
      * @param family     family of the intrinsic interval
@@ -66,9 +70,9 @@ public final class GrowthWeightedEstimator {
      */
     public static BackwardIntervalFit backwardTraced(double[] intervals, DelayFamily family, Estimate growthRate,
                                                      DelayOptions options) {
-        GrowthWeightedFit corrected = fit(intervals, family, growthRate, options);
-        DelayFit naive = DelayEstimator.growthWeighted(intervals, family, 0.0, options);
         Composer c = new Composer(intervals, family, growthRate, options);
+        GrowthWeightedFit corrected = fit(c, family, growthRate);
+        DelayFit naive = DelayEstimator.growthWeighted(intervals, family, 0.0, options);
         Estimate rCorrected = c.compose((t, r) -> reproduction(family, t, r), ParameterTransform.log());
         Composer n = new Composer(naive, growthRate, options);
         Estimate rNaive = n.compose((t, r) -> reproduction(family, t, r), ParameterTransform.log());
@@ -76,12 +80,12 @@ public final class GrowthWeightedEstimator {
     }
 
     static double reproduction(DelayFamily family, double[] theta, double r) {
-        double m = family.of(theta).laplaceTransform(r);
-        if (!(m > 0 && m < Double.POSITIVE_INFINITY)) {
-            throw new EstimationException("Euler-Lotka has no solution: M(-r) = " + m + " for the "
-                    + family.name() + " at r = " + r);
+        try {
+            return EulerLotka.reproductionNumber(family.of(theta), r);
+        } catch (IllegalArgumentException e) {
+            throw new EstimationException("Euler-Lotka has no solution for the " + family.name() + ": "
+                    + e.getMessage(), e);
         }
-        return 1 / m;
     }
 
     /** A quantity of natural parameters and r. */
