@@ -73,4 +73,33 @@ class DelayEstimatorApiTest {
         assertTrue(median.lower() < median.estimate() && median.estimate() < median.upper());
         assertThrows(IllegalArgumentException.class, () -> fit.quantile(0.9));
     }
+
+    @Test
+    void growthRateUncertaintyComposition() {
+        org.apache.commons.rng.UniformRandomProvider rng =
+                org.apache.commons.rng.simple.RandomSource.XO_RO_SHI_RO_128_PP.create(11L);
+        double[] d = new double[400];
+        for (int i = 0; i < d.length; i++) {
+            d[i] = DelayFamilies.GAMMA.of(2, 0.5).sample(rng);
+        }
+        double r = 0.1;
+        GrowthWeightedFit exact = GrowthWeightedEstimator.fit(d, DelayFamilies.GAMMA, new Estimate(r, r, r, 0.95, "known"), O);
+        assertEquals(exact.conditional().mean(), exact.mean(), "se(r) = 0: the conditional interval");
+        GrowthWeightedFit small = GrowthWeightedEstimator.fit(d, DelayFamilies.GAMMA,
+                new Estimate(r, r - 0.01, r + 0.01, 0.95, "wald"), O);
+        GrowthWeightedFit large = GrowthWeightedEstimator.fit(d, DelayFamilies.GAMMA,
+                new Estimate(r, r - 0.04, r + 0.04, 0.95, "wald"), O);
+        assertEquals(exact.mean().estimate(), small.mean().estimate(), 0.0, "same point estimate");
+        assertTrue(exact.mean().width() < small.mean().width() && small.mean().width() < large.mean().width(),
+                "wider r interval, wider mean interval");
+        // gamma tilt (docs/methods.md section 3): the fitted intrinsic rate is the observed-law rate minus r,
+        // the shape does not depend on r, so d log(mean) / dr = 1 / rate
+        double b = exact.conditional().parameter("rate").estimate();
+        double seR = 0.04 / 1.959963984540054;
+        double seCond = (Math.log(exact.mean().upper()) - Math.log(exact.mean().estimate())) / 1.959963984540054;
+        double dLogMean = 1 / b; // d log(a / b) / dr with b(r) = b_obs - r and a fixed: 1 / b
+        double expected = Math.sqrt(seCond * seCond + dLogMean * dLogMean * seR * seR);
+        double got = (Math.log(large.mean().upper()) - Math.log(large.mean().estimate())) / 1.959963984540054;
+        assertEquals(expected, got, 0.02 * expected, "delta composition for the gamma (closed-form tilt)");
+    }
 }
