@@ -11,7 +11,9 @@ import org.incipit.core.estimate.delay.DelayFit;
 import org.incipit.core.inference.Estimate;
 import org.incipit.core.likelihood.MaximumLikelihoodFit;
 import org.incipit.core.observe.DailyCounts;
+import org.incipit.distributions.DailyMasses;
 import org.incipit.distributions.DelayDistribution;
+import org.incipit.distributions.Discretisation;
 import org.incipit.distributions.DelayFamily;
 
 /**
@@ -100,10 +102,31 @@ public final class FatalityEstimator {
      * @throws EstimationException if no case can have died by T (u = 0)
      */
     public static Estimate windowAdjusted(DailyCounts counts, DelayDistribution onsetToDeath, double level) {
+        return windowAdjusted(counts, onsetToDeath, Discretisation.DAY_INTERVAL, level);
+    }
+
+    /**
+     * {@link #windowAdjusted(DailyCounts, DelayDistribution, double)} with a choice of day
+     * convention: {@code DAY_INTERVAL} (the default) counts a case of day t as dead by T with
+     * probability F(T &minus; t + 1), exact when the whole-day delay &lfloor;X&rfloor; is what
+     * separates the onset day from the death day; {@code DOUBLE_CENSORED} uses
+     * &int;<sub>0</sub><sup>1</sup> F(T &minus; t + 1 &minus; u) du, exact when onsets are
+     * continuous and uniform within their day and deaths are counted on the day they happen
+     * (the sum of the distribution layer's DOUBLE_CENSORED masses up to T &minus; t).
+     *
+     * @param counts       cases and deaths
+     * @param onsetToDeath the onset-to-death delay
+     * @param convention   day convention
+     * @param level        coverage
+     * @return the estimate, method "profile"
+     * @throws EstimationException if no case can have died by T
+     */
+    public static Estimate windowAdjusted(DailyCounts counts, DelayDistribution onsetToDeath,
+                                          Discretisation convention, double level) {
         checkLevel(level);
         long c = counts.totalCases();
         long d = sum(deaths(counts));
-        double u = expectedResolved(counts, onsetToDeath);
+        double u = expectedResolved(counts, onsetToDeath, convention);
         if (!(u > 0)) {
             throw new EstimationException("no case can have died by the last day (sum of c_t F(T - t + 1) is 0)");
         }
@@ -279,6 +302,34 @@ public final class FatalityEstimator {
      * @return u, in [0, C]
      */
     public static double expectedResolved(DailyCounts counts, DelayDistribution delay) {
+        return expectedResolved(counts, delay, Discretisation.DAY_INTERVAL);
+    }
+
+    /**
+     * @param counts     cases by onset day
+     * @param delay      onset-to-outcome delay
+     * @param convention {@code DAY_INTERVAL}: &Sigma; c<sub>t</sub> F(T &minus; t + 1);
+     *                   {@code DOUBLE_CENSORED}: &Sigma; c<sub>t</sub> &Sigma;<sub>d &le; T&minus;t</sub>
+     *                   (double-censored mass of day d)
+     * @return u, in [0, C]
+     */
+    public static double expectedResolved(DailyCounts counts, DelayDistribution delay, Discretisation convention) {
+        if (convention == Discretisation.DOUBLE_CENSORED) {
+            int[] c = counts.cases();
+            int n = c.length;
+            DailyMasses m = delay.discretise(n - 1, Discretisation.DOUBLE_CENSORED);
+            double[] cum = new double[n];
+            double s = 0;
+            for (int d = 0; d < n; d++) {
+                s += m.mass(d);
+                cum[d] = s;
+            }
+            double u = 0;
+            for (int i = 0; i < n; i++) {
+                u += c[i] * cum[n - 1 - i];
+            }
+            return u;
+        }
         int[] c = counts.cases();
         int n = c.length;
         double u = 0;

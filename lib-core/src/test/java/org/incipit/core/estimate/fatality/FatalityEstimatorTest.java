@@ -125,6 +125,32 @@ class FatalityEstimatorTest {
     }
 
     @Test
+    void doubleCensoredConventionIsTheIntegralOverTheOnsetDay() {
+        // sum_t c_t int_0^1 F(T - t + 1 - u) du by composite Simpson with 2000 panels (common practice)
+        DailyCounts.Builder b = DailyCounts.builder().withDeaths();
+        int[] c = {3, 0, 5, 8, 2, 9, 12, 4};
+        for (int t = 0; t < c.length; t++) {
+            b.add(t, c[t], 0, -1, -1);
+        }
+        int last = c.length - 1;
+        double expected = 0;
+        int m = 2000;
+        for (int t = 0; t < c.length; t++) {
+            double s = 0;
+            for (int j = 0; j <= m; j++) {
+                double u = (double) j / m;
+                double w = j == 0 || j == m ? 1 : (j % 2 == 1 ? 4 : 2);
+                s += w * TO_DEATH.cdf(last - t + 1 - u);
+            }
+            expected += c[t] * s / (3.0 * m);
+        }
+        double got = FatalityEstimator.expectedResolved(b.build(), TO_DEATH, Discretisation.DOUBLE_CENSORED);
+        assertEquals(expected, got, 1e-9 * expected);
+        double plus = FatalityEstimator.expectedResolved(b.build(), TO_DEATH);
+        assertTrue(got < plus, "the whole-day convention counts more expected deaths");
+    }
+
+    @Test
     void resolvedOnlyGrowthLimitMatchesBruteForce() {
         // long growth, fine steps: D/(D+Rec) -> p M_f(-r) / (p M_f(-r) + (1 - p) M_h(-r))
         double r = 0.1;
