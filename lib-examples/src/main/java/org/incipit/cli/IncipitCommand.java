@@ -19,7 +19,7 @@ import picocli.CommandLine.Spec;
             "Exit codes: 0 success, 1 internal error, 2 bad usage or input,",
             "            3 estimation failed.",
             "Input files: see 'incipit help check'."},
-        subcommands = {CheckCommand.class, CommandLine.HelpCommand.class})
+        subcommands = {CheckCommand.class, StudyCommand.class, CommandLine.HelpCommand.class})
 public final class IncipitCommand implements Callable<Integer> {
 
     @Spec

@@ -2,15 +2,25 @@ package org.incipit.report;
 
 import java.awt.BasicStroke;
 import java.awt.Color;
+import java.awt.Graphics2D;
+import java.awt.geom.Ellipse2D;
+import java.awt.geom.Rectangle2D;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 import org.jfree.chart.ChartUtils;
 import org.jfree.chart.JFreeChart;
+import org.jfree.chart.axis.AxisState;
 import org.jfree.chart.axis.LogAxis;
+import org.jfree.chart.axis.NumberTick;
 import org.jfree.chart.axis.NumberAxis;
 import org.jfree.chart.axis.SymbolAxis;
+import org.jfree.chart.plot.CombinedDomainXYPlot;
+import org.jfree.chart.plot.ValueMarker;
 import org.jfree.chart.plot.PlotOrientation;
 import org.jfree.chart.plot.XYPlot;
 import org.jfree.chart.renderer.xy.DeviationRenderer;
@@ -19,6 +29,8 @@ import org.jfree.chart.renderer.xy.XYErrorRenderer;
 import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
 import org.jfree.chart.renderer.xy.StandardXYBarPainter;
 import org.jfree.chart.title.TextTitle;
+import org.jfree.chart.ui.RectangleEdge;
+import org.jfree.chart.ui.TextAnchor;
 import org.jfree.data.statistics.HistogramDataset;
 import org.jfree.data.statistics.HistogramType;
 import org.jfree.data.xy.XYSeries;
@@ -26,6 +38,7 @@ import org.jfree.data.xy.XYSeriesCollection;
 import org.jfree.data.xy.YIntervalSeries;
 import org.jfree.data.xy.YIntervalSeriesCollection;
 import org.incipit.core.inference.Estimate;
+import org.incipit.core.study.StudySummary;
 
 /**
  * Standard figures as PNG files (JFreeChart, drawn headless). Every method validates its data
@@ -272,6 +285,117 @@ public final class Charts {
             chart.addSubtitle(new TextTitle("whiskers reaching the edge of the plot are unbounded"));
         }
         write(png, chart);
+    }
+
+    /**
+     * Simulation-study summary by sample size, one line per estimator and target: on top the
+     * relative bias (bias / truth; the bias itself if a truth is 0) with a band of &plusmn;1.96
+     * Monte Carlo SE, below the coverage with its Clopper&ndash;Pearson 95% band and a dashed line
+     * at the nominal level. The sample-size axis is logarithmic. Points with no successful
+     * replicate (or too few for an SE) are left out, and a note under the title says how many.
+     *
+     * @param png   output file
+     * @param title figure title
+     * @param rows  summaries (e.g. {@code StudyResult.summaries()}), at least one
+     * @throws IllegalArgumentException if {@code rows} is empty
+     * @throws IOException              if the file cannot be written
+     */
+    public static void studySummary(Path png, String title, List<StudySummary> rows) throws IOException {
+        if (rows == null || rows.isEmpty()) {
+            throw new IllegalArgumentException("rows must not be empty");
+        }
+        boolean relative = rows.stream().allMatch(s -> s.truth() != 0);
+        Map<String, YIntervalSeries> bias = new LinkedHashMap<>();
+        Map<String, YIntervalSeries> coverage = new LinkedHashMap<>();
+        int left = 0;
+        double level = rows.get(0).level();
+        for (StudySummary s : rows) {
+            String key = s.estimator() + " : " + s.target();
+            YIntervalSeries b = bias.computeIfAbsent(key, k -> new YIntervalSeries(k, false, true));
+            YIntervalSeries c = coverage.computeIfAbsent(key, k -> new YIntervalSeries(k, false, true));
+            double scale = relative ? Math.abs(s.truth()) : 1;
+            double v = relative ? s.relativeBias() : s.bias();
+            double half = 1.959963984540054 * s.biasStandardError() / scale;
+            if (Double.isFinite(v) && Double.isFinite(half)) {
+                b.add(s.sampleSize(), v, v - half, v + half);
+            } else {
+                left++;
+            }
+            if (Double.isFinite(s.coverage())) {
+                c.add(s.sampleSize(), s.coverage(), s.coverageLower(), s.coverageUpper());
+            }
+        }
+        YIntervalSeriesCollection biasData = new YIntervalSeriesCollection();
+        bias.values().forEach(biasData::addSeries);
+        YIntervalSeriesCollection coverageData = new YIntervalSeriesCollection();
+        coverage.values().forEach(coverageData::addSeries);
+        NumberAxis biasAxis = new NumberAxis(relative ? "relative bias" : "bias");
+        biasAxis.setAutoRangeIncludesZero(true);
+        XYPlot top = new XYPlot(biasData, null, biasAxis, bands(bias.size()));
+        top.addRangeMarker(new ValueMarker(0, Color.DARK_GRAY, new BasicStroke(1f)));
+        NumberAxis coverageAxis = new NumberAxis("coverage");
+        coverageAxis.setAutoRangeIncludesZero(false);
+        XYPlot bottom = new XYPlot(coverageData, null, coverageAxis, bands(coverage.size()));
+        bottom.addRangeMarker(new ValueMarker(level, Color.DARK_GRAY, new BasicStroke(1.5f, BasicStroke.CAP_BUTT,
+                BasicStroke.JOIN_MITER, 10f, new float[] {6f, 4f}, 0f)));
+        SampleSizeAxis n = new SampleSizeAxis(rows.stream().mapToInt(StudySummary::sampleSize).distinct().sorted()
+                .toArray());
+        CombinedDomainXYPlot plot = new CombinedDomainXYPlot(n);
+        plot.setGap(10);
+        for (XYPlot p : new XYPlot[] {top, bottom}) {
+            p.setBackgroundPaint(Color.WHITE);
+            p.setDomainGridlinePaint(Color.LIGHT_GRAY);
+            p.setRangeGridlinePaint(Color.LIGHT_GRAY);
+            plot.add(p, 1);
+        }
+        plot.setFixedLegendItems(top.getLegendItems()); // one legend entry per line, not per panel
+        JFreeChart chart = chart(title, plot);
+        chart.addSubtitle(new TextTitle("bands: bias \u00b1 1.96 Monte Carlo SE; coverage Clopper\u2013Pearson 95%;"
+                + " dashed: nominal " + level));
+        if (left > 0) {
+            chart.addSubtitle(new TextTitle(left + (left == 1 ? " point" : " points")
+                    + " without enough successful replicates not shown"));
+        }
+        write(png, chart);
+    }
+
+    private static DeviationRenderer bands(int n) {
+        DeviationRenderer r = new DeviationRenderer(true, true);
+        for (int i = 0; i < n; i++) {
+            Color c = i == 0 ? CORRECTED : LINES[(i - 1) % LINES.length];
+            r.setSeriesPaint(i, c);
+            r.setSeriesFillPaint(i, c);
+            r.setSeriesStroke(i, new BasicStroke(2f));
+            r.setSeriesShape(i, new Ellipse2D.Double(-3.5, -3.5, 7, 7));
+        }
+        r.setAlpha(0.2f);
+        return r;
+    }
+
+    /** Logarithmic axis with a labelled tick at each sample size of the study, and a margin. */
+    private static final class SampleSizeAxis extends LogAxis {
+        private static final long serialVersionUID = 1L;
+        private final int[] sizes;
+
+        SampleSizeAxis(int[] sizes) {
+            super("sample size");
+            this.sizes = sizes.clone();
+            double lo = sizes[0];
+            double hi = sizes[sizes.length - 1];
+            setSmallestValue(1e-3);
+            setRange(lo / 1.3, hi * 1.3);
+        }
+
+        @Override
+        @SuppressWarnings({"rawtypes", "unchecked"}) // JFreeChart declares a raw List
+        public List refreshTicks(Graphics2D g2, AxisState state, Rectangle2D dataArea, RectangleEdge edge) {
+            List ticks = new ArrayList();
+            for (int n : sizes) {
+                ticks.add(new NumberTick((double) n, Integer.toString(n), TextAnchor.TOP_CENTER, TextAnchor.CENTER,
+                        0.0));
+            }
+            return ticks;
+        }
     }
 
     private static boolean add(YIntervalSeries s, double x, Estimate e, double min, double max) {

@@ -10,7 +10,9 @@ import java.io.IOException;
 import java.nio.file.Path;
 import java.util.List;
 import javax.imageio.ImageIO;
+import java.util.Map;
 import org.incipit.core.inference.Estimate;
+import org.incipit.core.study.StudySummary;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -118,5 +120,25 @@ class ChartsTest {
         e = assertThrows(IllegalArgumentException.class,
                 () -> new Curve("c", new double[] {1, 2}, new double[] {1}));
         assertEquals("curve 'c' needs x and y of the same length >= 2, had 2 and 1", e.getMessage());
+    }
+
+    @Test
+    void studySummaryByEstimatorAndSampleSize() throws IOException {
+        double[] est = {1, 2, 3};
+        double[] lo = {0, 1, 2};
+        double[] hi = {2, 3, 4};
+        List<StudySummary> rows = List.of(
+                StudySummary.of("a", "mean", 5, 2, 0.95, est, lo, hi, Map.of()),
+                StudySummary.of("a", "mean", 50, 2, 0.95, est, lo, hi, Map.of("boom", 1)),
+                StudySummary.of("b", "mean", 5, 2, 0.95, new double[0], new double[0], new double[0],
+                        Map.of("no fit", 3)),
+                StudySummary.of("b", "mean", 50, 2, 0.95, est, lo, hi, Map.of()));
+        Path png = dir.resolve("study/summary.png");
+        Charts.studySummary(png, "Study", rows);
+        decodable(png);
+        // a truth of 0: the absolute bias is drawn
+        Charts.studySummary(png, "Study", List.of(StudySummary.of("a", "r", 5, 0, 0.95, est, lo, hi, Map.of())));
+        decodable(png);
+        assertThrows(IllegalArgumentException.class, () -> Charts.studySummary(png, "t", List.of()));
     }
 }

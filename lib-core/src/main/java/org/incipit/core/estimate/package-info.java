@@ -1,8 +1,8 @@
 /**
- * Estimators: one sub-package per question. {@link org.incipit.core.estimate.delay} fits
- * parametric delay distributions (truncated, censored, growth-weighted, backward-traced,
- * incubation windows); {@link org.incipit.core.estimate.fatality} estimates fatality ratios for
- * outcomes that happen with a delay. Every estimator returns estimates with intervals from the
- * likelihood engine ({@link org.incipit.core.likelihood}).
+ * Estimators, one package or class per observation scheme; each takes observations, a family
+ * and options and returns a result record with estimates and intervals. Delay estimation
+ * (truncated, censored, growth-weighted, backward-traced, incubation windows) is in
+ * {@link org.incipit.core.estimate.delay}; fatality ratios for delayed outcomes are in
+ * {@link org.incipit.core.estimate.fatality}.
  */
 package org.incipit.core.estimate;

@@ -1,0 +1,268 @@
+package org.incipit.core.estimate.ambiguous;
+
+import java.util.Arrays;
+
+/**
+ * Ambiguous-start data prepared once for the likelihood kernels: flat primitive arrays, per
+ * candidate the log-duration, the duration, the rank j &minus; 1 within its case and the
+ * category; per case an offset. Immutable (arrays never leave the package). 24 bytes per
+ * candidate (two doubles and two ints).
+ *
+ * <p><b>Ties and starts at or after the end.</b> A candidate with d = t &minus; e &le; 0 cannot
+ * have started the interval (H is continuous on (0, &infin;), so X = 0 has probability 0): its
+ * term h(d) is taken as 0 whatever the family's density does at 0 (which may be 0, finite or
+ * &infin;). It is kept out of the likelihood sum but still counted as a recorded exposure (in
+ * the complete-history normaliser). Since starts are sorted, such candidates are the last of
+ * their case. A case none of whose candidates precedes the end has likelihood 0 for every
+ * parameter and is rejected.
+ */
+final class Prepared {
+
+    /** Number of cases. */
+    final int n;
+    /** Number of transmission categories K &ge; 1, or 0 for a plain fit (no p; one candidate per case). */
+    final int categories;
+    /** Case i's usable candidates are [offset[i], offset[i+1]). */
+    final int[] offset;
+    /** log d per usable candidate. */
+    final double[] logD;
+    /** d per usable candidate. */
+    final double[] dur;
+    /** j &minus; 1 per usable candidate. */
+    final int[] rank;
+    /** Category code in [0, K) per usable candidate; all 0 if K &le; 1. */
+    final int[] cat;
+    /** Recorded exposures per case and category (including those with d &le; 0), flat n &times; max(K,1). */
+    final int[] recorded;
+    /** Marker of an unknown total in {@link #total}. */
+    static final int UNKNOWN = -1;
+    /** Total exposure count M per case ({@link #UNKNOWN} if not known), or null. */
+    final int[] total;
+    /** Largest number of usable candidates in one case. */
+    final int maxM;
+    /** Case ids (for messages), may be null. */
+    final String[] ids;
+
+    private Prepared(int n, int categories, int[] offset, double[] logD, double[] dur, int[] rank, int[] cat,
+                     int[] recorded, int[] total, String[] ids) {
+        this.n = n;
+        this.categories = categories;
+        this.offset = offset;
+        this.logD = logD;
+        this.dur = dur;
+        this.rank = rank;
+        this.cat = cat;
+        this.recorded = recorded;
+        this.total = total;
+        this.ids = ids;
+        int mm = 0;
+        for (int i = 0; i < n; i++) {
+            mm = Math.max(mm, offset[i + 1] - offset[i]);
+        }
+        this.maxM = mm;
+    }
+
+    /**
+     * @param ends        end time per case
+     * @param caseOffsets n + 1 offsets into {@code starts}
+     * @param starts      candidate starts, sorted within each case
+     * @param categories  category per candidate in [0, k), or null (one category)
+     * @param k           number of categories, &ge; 1
+     * @param totals      total exposures per case (&ge; recorded count), or null
+     * @param ids         case ids or null
+     */
+    static Prepared of(double[] ends, int[] caseOffsets, double[] starts, int[] categories, int k, int[] totals,
+                       String[] ids) {
+        int n = ends.length;
+        if (n < 1) {
+            throw new IllegalArgumentException("cases must number >= 1, was " + n);
+        }
+        if (caseOffsets.length != n + 1 || caseOffsets[0] != 0 || caseOffsets[n] != starts.length) {
+            throw new IllegalArgumentException("caseOffsets must have length n + 1 = " + (n + 1)
+                    + ", start at 0 and end at the number of starts " + starts.length);
+        }
+        if (k < 1) {
+            throw new IllegalArgumentException("number of categories must be >= 1, was " + k);
+        }
+        if (categories != null && categories.length != starts.length) {
+            throw new IllegalArgumentException("categories must have one entry per start (" + starts.length
+                    + "), had " + categories.length);
+        }
+        if (totals != null && totals.length != n) {
+            throw new IllegalArgumentException("totals must have one entry per case (" + n + "), had " + totals.length);
+        }
+        int[] off = new int[n + 1];
+        int usable = 0;
+        for (int i = 0; i < n; i++) {
+            int a = caseOffsets[i];
+            int b = caseOffsets[i + 1];
+            if (b <= a) {
+                throw new IllegalArgumentException("case " + name(ids, i) + " must have >= 1 candidate start");
+            }
+            int u = 0;
+            for (int j = a; j < b; j++) {
+                if (!Double.isFinite(starts[j])) {
+                    throw new IllegalArgumentException("start of case " + name(ids, i) + " must be finite, was "
+                            + starts[j]);
+                }
+                if (j > a && starts[j] < starts[j - 1]) {
+                    throw new IllegalArgumentException("starts of case " + name(ids, i)
+                            + " must be sorted ascending, found " + starts[j - 1] + " before " + starts[j]);
+                }
+                if (ends[i] - starts[j] > 0) {
+                    u++;
+                }
+            }
+            if (!Double.isFinite(ends[i])) {
+                throw new IllegalArgumentException("end of case " + name(ids, i) + " must be finite, was " + ends[i]);
+            }
+            if (u == 0) {
+                throw new IllegalArgumentException("case " + name(ids, i) + " (end " + ends[i]
+                        + ") has no candidate start before its end; its likelihood would be 0");
+            }
+            if (totals != null && totals[i] != UNKNOWN && totals[i] < b - a) {
+                throw new IllegalArgumentException("total exposures of case " + name(ids, i) + " must be >= its "
+                        + (b - a) + " recorded starts, was " + totals[i]);
+            }
+            off[i + 1] = off[i] + u;
+            usable += u;
+        }
+        double[] logD = new double[usable];
+        double[] dur = new double[usable];
+        int[] rank = new int[usable];
+        int[] cat = new int[usable];
+        int[] recorded = new int[n * k];
+        for (int i = 0; i < n; i++) {
+            int a = caseOffsets[i];
+            int w = off[i];
+            for (int j = a; j < caseOffsets[i + 1]; j++) {
+                int c = categories == null ? 0 : categories[j];
+                if (c < 0 || c >= k) {
+                    throw new IllegalArgumentException("category of a start of case " + name(ids, i)
+                            + " must be in [0, " + k + "), was " + c);
+                }
+                recorded[i * k + c]++;
+                double d = ends[i] - starts[j];
+                if (d > 0) {
+                    dur[w] = d;
+                    logD[w] = Math.log(d);
+                    rank[w] = j - a;
+                    cat[w] = c;
+                    w++;
+                }
+            }
+        }
+        return new Prepared(n, k, off, logD, dur, rank, cat, recorded, totals == null ? null : totals.clone(),
+                ids == null ? null : ids.clone());
+    }
+
+    /** Adapter from the observation type. */
+    static Prepared from(org.incipit.core.observe.AmbiguousStartCases c) {
+        int n = c.caseCount();
+        int k = Math.max(1, c.categoryNames().size());
+        int[] totals = null;
+        if (c.hasTotalExposures()) {
+            totals = new int[n];
+            for (int i = 0; i < n; i++) {
+                totals[i] = c.totalExposures(i);
+            }
+        }
+        String[] ids = c.ids().toArray(new String[0]);
+        return of(c.ends(), c.offsets(), c.starts(), c.hasCategories() ? c.categoryCodes() : null, k, totals, ids);
+    }
+
+    /** One duration per case, no p: for plain fits (naive rules). */
+    static Prepared plain(double[] durations) {
+        int n = durations.length;
+        if (n < 1) {
+            throw new IllegalArgumentException("durations must number >= 1, was " + n);
+        }
+        int[] off = new int[n + 1];
+        double[] logD = new double[n];
+        for (int i = 0; i < n; i++) {
+            if (!(durations[i] > 0 && durations[i] < Double.POSITIVE_INFINITY)) {
+                throw new IllegalArgumentException("duration " + i + " must be finite and > 0, was " + durations[i]);
+            }
+            off[i + 1] = i + 1;
+            logD[i] = Math.log(durations[i]);
+        }
+        return new Prepared(n, 0, off, logD, durations.clone(), new int[n], new int[n], new int[n], null, null);
+    }
+
+    /** The cases idx[0], idx[1], ... (with repetition), e.g. a bootstrap resample. */
+    Prepared subset(int[] idx) {
+        int kk = Math.max(categories, 1);
+        int[] off = new int[idx.length + 1];
+        for (int r = 0; r < idx.length; r++) {
+            int i = idx[r];
+            off[r + 1] = off[r] + offset[i + 1] - offset[i];
+        }
+        int m = off[idx.length];
+        double[] l = new double[m];
+        double[] d = new double[m];
+        int[] rk = new int[m];
+        int[] c = new int[m];
+        int[] rec = new int[idx.length * kk];
+        int[] tot = total == null ? null : new int[idx.length];
+        for (int r = 0; r < idx.length; r++) {
+            int i = idx[r];
+            int len = offset[i + 1] - offset[i];
+            System.arraycopy(logD, offset[i], l, off[r], len);
+            System.arraycopy(dur, offset[i], d, off[r], len);
+            System.arraycopy(rank, offset[i], rk, off[r], len);
+            System.arraycopy(cat, offset[i], c, off[r], len);
+            System.arraycopy(recorded, i * kk, rec, r * kk, kk);
+            if (tot != null) {
+                tot[r] = total[i];
+            }
+        }
+        return new Prepared(idx.length, categories, off, l, d, rk, c, rec, tot, null);
+    }
+
+    /** Number of usable candidates. */
+    int candidates() {
+        return offset[n];
+    }
+
+    /** Recorded exposures of case i (all categories, including d &le; 0). */
+    int recordedCount(int i) {
+        int kk = Math.max(categories, 1);
+        int s = 0;
+        for (int c = 0; c < kk; c++) {
+            s += recorded[i * kk + c];
+        }
+        return s;
+    }
+
+    /** Duration of the earliest candidate of every case (new array). */
+    double[] earliest() {
+        double[] out = new double[n];
+        for (int i = 0; i < n; i++) {
+            out[i] = dur[offset[i]];
+        }
+        return out;
+    }
+
+    /** Duration of the latest usable candidate of every case (new array). */
+    double[] latest() {
+        double[] out = new double[n];
+        for (int i = 0; i < n; i++) {
+            out[i] = dur[offset[i + 1] - 1];
+        }
+        return out;
+    }
+
+    String caseName(int i) {
+        return name(ids, i);
+    }
+
+    private static String name(String[] ids, int i) {
+        return ids == null ? "#" + i : "'" + ids[i] + "'";
+    }
+
+    @Override
+    public String toString() {
+        return "Prepared[n=" + n + ", candidates=" + candidates() + ", categories=" + categories + ", offsets="
+                + Arrays.toString(Arrays.copyOf(offset, Math.min(5, offset.length))) + "...]";
+    }
+}
