@@ -7,6 +7,12 @@ import java.util.Locale;
 import java.util.Map;
 import org.incipit.core.estimate.ambiguous.AmbiguousStartFit;
 import org.incipit.core.estimate.ambiguous.NaiveFit;
+import org.incipit.core.estimate.delay.DelayEstimator;
+import org.incipit.core.estimate.delay.DelayFit;
+import org.incipit.core.inference.ModelComparison;
+import java.util.ArrayList;
+import java.util.function.Function;
+import org.incipit.core.EstimationException;
 import org.incipit.core.inference.Estimate;
 import org.incipit.distributions.DelayFamilies;
 import org.incipit.distributions.DelayFamily;
@@ -108,5 +114,62 @@ final class Fits {
     static void row(TextTable t, FitSummary f) {
         t.row(f.family(), parameterCell(f.parameters()), Cli.cell(f.mean()), Cli.cell(f.sd()),
                 TextTable.number(f.aic()), Integer.toString(f.n()), f.converged() ? "yes" : "no");
+    }
+
+    static FitSummary summary(DelayFit f) {
+        return new FitSummary(f.family().name(), parameters(f.parameterNames(), f.parameters()), f.mean(), f.sd(),
+                f.logLikelihood(), f.aic(), f.observations(), f.converged());
+    }
+
+    /** A delay fit that must have converged. */
+    static DelayFit converged(DelayFit f) {
+        if (!f.converged()) {
+            throw new EstimationException(f.family().name() + " fit did not converge: " + f.message());
+        }
+        return f;
+    }
+
+    /** Fits of one or more families, with the best by AIC among the converged ones. */
+    record DelayFits(List<DelayFit> fits, DelayFit best) {
+    }
+
+    static DelayFits fitAll(List<DelayFamily> families, Function<DelayFamily, DelayFit> fitter) {
+        if (families.size() == 1) {
+            DelayFit f = converged(fitter.apply(families.get(0)));
+            return new DelayFits(List.of(f), f);
+        }
+        List<DelayFit> all = new ArrayList<>();
+        List<DelayFit> ok = new ArrayList<>();
+        for (DelayFamily fam : families) {
+            DelayFit f = fitter.apply(fam);
+            all.add(f);
+            if (f.converged()) {
+                ok.add(f);
+            }
+        }
+        if (ok.isEmpty()) {
+            throw new EstimationException("no family converged: " + all.get(0).message());
+        }
+        ModelComparison c = DelayEstimator.compare(ok);
+        DelayFit best = ok.stream().filter(f -> f.family().name().equals(c.best().name())).findFirst().orElseThrow();
+        return new DelayFits(all, best);
+    }
+
+    /** JSON of one fit, or {"fits":[..],"best":..}. */
+    static ObjectNode json(DelayFits f) {
+        if (f.fits().size() == 1) {
+            return JsonOutput.fit(summary(f.best()));
+        }
+        List<FitSummary> s = new ArrayList<>();
+        f.fits().forEach(x -> s.add(summary(x)));
+        ObjectNode o = JsonOutput.fits(s, f.best().family().name());
+        o.put("criterion", "AIC");
+        return o;
+    }
+
+    static TextTable table(DelayFits f) {
+        TextTable t = table();
+        f.fits().forEach(x -> row(t, summary(x)));
+        return t;
     }
 }

@@ -20,7 +20,8 @@ import picocli.CommandLine.Spec;
             "            3 estimation failed.",
             "Input files: see 'incipit help check'."},
         subcommands = {CheckCommand.class, SimulateCommand.class, GrowthCommand.class,
-            ReproductionCommand.class, IntervalsCommand.class, StudyCommand.class, DemoCommand.class,
+            ReproductionCommand.class, IntervalsCommand.class, DelaysCommand.class,
+            IncubationCommand.class, FatalityCommand.class, StudyCommand.class, DemoCommand.class,
             AnalyseCommand.class, CommandLine.HelpCommand.class})
 public final class IncipitCommand implements Callable<Integer> {
 

@@ -9,11 +9,13 @@ import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import org.apache.commons.rng.UniformRandomProvider;
 import org.apache.commons.rng.simple.RandomSource;
 import org.incipit.core.branching.OffspringLaw;
 import org.incipit.core.growth.EulerLotka;
 import org.incipit.core.simulate.ExposureModel;
 import org.incipit.core.simulate.ExposureRecords;
+import org.incipit.core.simulate.ExposureSampler;
 import org.incipit.core.simulate.OutbreakOptions;
 import org.incipit.core.simulate.OutbreakSimulator;
 import org.incipit.core.simulate.SimulatedData;
@@ -33,7 +35,7 @@ import org.incipit.io.JsonOutput;
  * date), {@code delays.csv} (onset-to-death pairs by date, right-truncated at the last complete
  * day), {@code intervals.csv} (traced cases: every recorded contact with a possible source
  * before onset, as candidate starts of the exposure-to-onset interval; day numbers),
- * {@code incubation.csv} (other traced cases: exposure window from the first to the last
+ * {@code incubation.csv} (a separate sample of cases with 4 contacts in 4 days: window from the first to the last
  * recorded contact, and onset; day numbers) and {@code truth.json}.
  */
 record Scenario(long seed, double reproductionNumber, double dispersion,
@@ -122,7 +124,7 @@ record Scenario(long seed, double reproductionNumber, double dispersion,
         int complete = o.days(); // stopDay is a whole number: days 0 .. days-1 are complete
         // traced cases: the earliest infected, so that all have their onset before the end
         int tracedCount = Math.min(traced, rec.size());
-        int windowCount = Math.min(windows, rec.size() - tracedCount);
+        int windowCount = windows;
         StringBuilder sb = new StringBuilder(head)
                 .append("# Daily counts by date of symptom onset, deaths and recoveries by date of outcome;\n")
                 .append("# imported = the index case (infected elsewhere).\n")
@@ -167,14 +169,27 @@ record Scenario(long seed, double reproductionNumber, double dispersion,
         }
         out.add(write(dir.resolve("intervals.csv"), sb));
 
+        // Exposure windows come from a separate survey of cases with a few known contacts in a short
+        // period (the library's exposure sampler, COMPLETE regime: 4 contacts spread over 4 days),
+        // so that the window does not depend on the incubation period; drawn from its own stream.
         sb = new StringBuilder(head)
-                .append("# Traced cases: exposure window from the first to the last recorded contact, and onset.\n")
-                .append("# Day numbers, day 0 = ").append(origin).append(".\n")
+                .append("# Cases with a known exposure period: window from the first to the last of their contacts\n")
+                .append("# (cut at onset), and onset. Day numbers, day 0 = ").append(origin).append(".\n")
                 .append("case,exposure_from,exposure_to,onset\n");
-        for (int i = tracedCount; i < tracedCount + windowCount; i++) {
-            int m = rec.candidateCount(i);
-            sb.append('W').append(i + 1).append(',').append(fixed(rec.candidateTime(i, 0))).append(',')
-                    .append(fixed(rec.candidateTime(i, m - 1))).append(',').append(fixed(rec.onset(i))).append('\n');
+        if (windowCount > 0) {
+            ExposureRecords w = ExposureSampler.sample(RandomSource.XO_RO_SHI_RO_128_PP.create(seed + 1),
+                    ExposureModel.complete(contactInfection, 4, 4.0), incubation(), windowCount);
+            // the sampler puts each infection at time 0: move each case to a calendar day of its own
+            UniformRandomProvider days = RandomSource.XO_RO_SHI_RO_128_PP.create(seed + 2);
+            for (int i = 0; i < windowCount; i++) {
+                double shift = Math.floor(days.nextDouble() * (this.days - 10)) + 0.5;
+                int m = w.candidateCount(i);
+                double onset = w.onset(i) + shift;
+                double from = w.candidateTime(i, 0) + shift;
+                double to = Math.min(w.candidateTime(i, m - 1) + shift, onset);
+                sb.append('W').append(i + 1).append(',').append(fixed(from)).append(',')
+                        .append(fixed(to)).append(',').append(fixed(onset)).append('\n');
+            }
         }
         out.add(write(dir.resolve("incubation.csv"), sb));
 
@@ -214,6 +229,10 @@ record Scenario(long seed, double reproductionNumber, double dispersion,
         c.put("infectionProbability", contactInfection);
         c.put("ratePerDay", contactRate);
         c.put("exposureHistory", "open");
+        ObjectNode w = t.putObject("exposureWindows");
+        w.put("note", "incubation.csv: separate sample, COMPLETE regime");
+        w.put("contacts", 4);
+        w.put("windowDays", 4.0);
         return t;
     }
 
