@@ -36,7 +36,9 @@ class DemoCommandTest {
         assertEquals(0, demo.code(), demo.err());
         for (String f : new String[] {"report.html", "results.json", "figures/growth.png",
             "figures/reproduction-comparison.png", "figures/reproduction-over-time.png",
-            "figures/intervals-fit.png", "figures/intervals-comparison.png", "data/counts.csv",
+            "figures/intervals-fit.png", "figures/intervals-comparison.png", "figures/delays-fit.png",
+            "figures/delays-comparison.png", "figures/incubation-fit.png", "figures/incubation-comparison.png",
+            "figures/fatality-comparison.png", "data/counts.csv",
             "data/truth.json"}) {
             assertTrue(Files.isRegularFile(out.resolve(f)), f);
         }
@@ -75,6 +77,25 @@ class DemoCommandTest {
         }
         assertTrue(j.at("/intervals/naive/nearest/mean/upper").asDouble() < mean, "nearest start: too short");
         assertTrue(j.at("/intervals/naive/earliest/mean/lower").asDouble() > mean, "earliest start: too long");
+        assertCovers(best(j.at("/incubation/corrected")).get("mean"), mean, "incubation from windows");
+        double death = t.at("/onsetToDeath/mean").asDouble();
+        assertCovers(best(j.at("/delays/corrected")).get("mean"), death, "onset-to-death mean");
+        assertTrue(best(j.at("/delays/naive")).at("/mean/estimate").asDouble() < death, "truncation ignored: short");
+        double p = t.get("fatalityRatio").asDouble();
+        assertCovers(j.at("/fatality/adjusted"), p, "adjusted fatality ratio");
+        assertTrue(j.at("/fatality/crudeInterval/upper").asDouble() < p, "crude ratio too low while deaths are due");
+    }
+
+    static JsonNode best(JsonNode fits) {
+        if (!fits.has("fits")) {
+            return fits;
+        }
+        for (JsonNode f : fits.get("fits")) {
+            if (f.get("family").asText().equals(fits.get("best").asText())) {
+                return f;
+            }
+        }
+        throw new AssertionError("best fit missing in " + fits);
     }
 
     static void assertCovers(JsonNode e, double truth, String what) {

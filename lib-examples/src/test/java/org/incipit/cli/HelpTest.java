@@ -10,7 +10,8 @@ import org.junit.jupiter.params.provider.ValueSource;
 class HelpTest {
 
     @ParameterizedTest
-    @ValueSource(strings = {"check", "simulate", "growth", "reproduction", "demo", "analyse"})
+    @ValueSource(strings = {"check", "simulate", "growth", "reproduction", "intervals", "delays", "incubation",
+        "fatality", "demo", "analyse"})
     void helpFits80ColumnsWithoutWarnings(String command) {
         CliRun r = CliRun.of("help", command);
         assertEquals(0, r.code());
