@@ -44,6 +44,7 @@ public class AmbiguousStartBenchmarks {
     private LogLikelihood likelihood;
     private final double[] theta = {Math.log(3), Math.log(0.6), 0};
     private final double[] gradient = new double[3];
+    private final double[] hessian = new double[9];
 
     static AmbiguousStartCases sample(long seed, int n) {
         UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
@@ -72,6 +73,13 @@ public class AmbiguousStartBenchmarks {
         return likelihood.valueAndGradient(theta, gradient) + gradient[0];
     }
 
+    /** One value, gradient and Hessian pass (what each Newton iteration costs). */
+    @Benchmark
+    public double valueGradientHessian() {
+        likelihood.hessian(theta, hessian);
+        return hessian[0];
+    }
+
     /** Full gamma fit: maximisation and observed information, no intervals. */
     @Benchmark
     public MaximumLikelihoodFit fitGamma() {
@@ -84,5 +92,57 @@ public class AmbiguousStartBenchmarks {
     public BootstrapResult bootstrap1000() {
         return AmbiguousStartEstimator.bootstrap(small, DelayFamilies.GAMMA, ExposureHistory.open(), 1000, 11L,
                 ForkJoinPool.commonPool());
+    }
+
+    /**
+     * Thread and process CPU time per operation (ThreadMXBean), to tell cost from contention on
+     * a shared machine: {@code java -cp benchmarks.jar
+     * 'org.incipit.benchmarks.AmbiguousStartBenchmarks$CpuTime'}. Prints, per n, wall, calling
+     * thread CPU and process CPU per pass and per fit, and candidate terms per process-CPU second
+     * (below 40,000 candidates the pass runs on the calling thread alone).
+     */
+    public static final class CpuTime {
+        private CpuTime() {
+        }
+
+        public static void main(String[] args) {
+            java.lang.management.ThreadMXBean tb = java.lang.management.ManagementFactory.getThreadMXBean();
+            com.sun.management.OperatingSystemMXBean os = (com.sun.management.OperatingSystemMXBean)
+                    java.lang.management.ManagementFactory.getOperatingSystemMXBean();
+            double[] th = {Math.log(3), Math.log(0.6), 0};
+            double[] g = new double[3];
+            double sink = 0;
+            for (int n : new int[] {10_000, 100_000}) {
+                AmbiguousStartCases d = sample(20261201L, n);
+                LogLikelihood ll = AmbiguousStartEstimator.logLikelihood(d, DelayFamilies.GAMMA, ExposureHistory.open());
+                int cand = d.offsets()[n] - d.offsets()[0];
+                int reps = 20_000_000 / n;
+                int fits = 400_000 / n;
+                for (int round = 0; round < 4; round++) {
+                    long c0 = tb.getCurrentThreadCpuTime();
+                    long p0 = os.getProcessCpuTime();
+                    long t0 = System.nanoTime();
+                    for (int r = 0; r < reps; r++) {
+                        sink += ll.valueAndGradient(th, g);
+                    }
+                    long c1 = tb.getCurrentThreadCpuTime();
+                    long p1 = os.getProcessCpuTime();
+                    long t1 = System.nanoTime();
+                    for (int r = 0; r < fits; r++) {
+                        sink += AmbiguousStartEstimator.maximumLikelihood(d, DelayFamilies.GAMMA, ExposureHistory.open())
+                                .logLikelihood();
+                    }
+                    long c2 = tb.getCurrentThreadCpuTime();
+                    long p2 = os.getProcessCpuTime();
+                    long t2 = System.nanoTime();
+                    System.out.printf("n=%d (%d candidates) round %d: pass wall %.3f ms, thread cpu %.3f ms, process cpu"
+                            + " %.3f ms, %.1f M terms per process-cpu s; fit wall %.2f ms, thread cpu %.2f ms, process cpu"
+                            + " %.2f ms%n", n, cand, round, (t1 - t0) / 1e6 / reps, (c1 - c0) / 1e6 / reps,
+                            (p1 - p0) / 1e6 / reps, cand / ((p1 - p0) / 1e3 / reps), (t2 - t1) / 1e6 / fits,
+                            (c2 - c1) / 1e6 / fits, (p2 - p1) / 1e6 / fits);
+                }
+            }
+            System.out.println(sink == 0 ? "" : " ");
+        }
     }
 }

@@ -30,8 +30,11 @@ import org.incipit.core.likelihood.LogLikelihood;
  * Poisson total: log(&minus;expm1(&minus;&mu;p)) with x = &mu;p, dx/dlogit p = &mu;pq,
  * d&sup2;x/d(logit p)&sup2; = &mu;pq(q &minus; p).
  *
- * <p><b>Speed and determinism.</b> Per candidate one exp and a few FMAs; per case no log
- * (the per-case sums, each in [1, m], are multiplied and their log taken when the product
+ * <p><b>Speed and determinism.</b> Per candidate one exp and a few FMAs (in the gamma /
+ * lognormal pass with at most one category, no exp for the first candidate of a case, which
+ * is the log-sum-exp reference there); per case no log
+ * (the per-case sums, each in [1, m] with the largest term as reference and in [1, 1e20] with
+ * the first, are multiplied and their log taken when the product
  * exceeds 1e280). Data with at least {@link #SPLIT} candidates are split into two halves of
  * the cases, evaluated concurrently and added in a fixed order, so the result depends only on
  * the data, not on the threads.
@@ -251,8 +254,55 @@ final class AmbiguousLikelihood implements LogLikelihood {
     }
 
     private static final double RESCALE = 1e280;
+    /** Largest per-case sum kept with the first-candidate reference (1e280 * 1e20 < 1e308). */
+    private static final double LARGE = 1e20;
 
-    /** Gamma / lognormal with at most one category: moments of (u, f2, rank) under w. */
+    /**
+     * The fallback for one case of {@link #linearPass}: reference max_j t_j, so that every
+     * weight is in (0, 1] and the sum in [1, m]. Writes {ref, s0, s1, s2, s3, s11, s12, s13,
+     * s22, s23, s33} to out. NaN terms give NaN sums, as they should.
+     */
+    private void maxReferenceCase(int a, int b, double b1, double b2, double logp, double logq, boolean square,
+                                  double[] out) {
+        final double[] u = data.logD;
+        final double[] du = data.dur;
+        final int[] rk = data.rank;
+        double mx = Double.NEGATIVE_INFINITY;
+        for (int j = a; j < b; j++) {
+            double y2 = square ? u[j] * u[j] : du[j];
+            double tj = Math.fma(b1, u[j], Math.fma(b2, y2, Math.fma(rk[j], logq, logp)));
+            mx = Double.isNaN(tj) ? tj : Math.max(mx, tj);
+        }
+        Arrays.fill(out, 0);
+        out[0] = mx;
+        for (int j = a; j < b; j++) {
+            double y1 = u[j];
+            double y2 = square ? y1 * y1 : du[j];
+            double y3 = rk[j];
+            double w = Math.exp(Math.fma(b1, y1, Math.fma(b2, y2, Math.fma(y3, logq, logp))) - mx);
+            out[1] += w;
+            out[2] = Math.fma(w, y1, out[2]);
+            out[3] = Math.fma(w, y2, out[3]);
+            out[4] = Math.fma(w, y3, out[4]);
+            out[5] = Math.fma(w * y1, y1, out[5]);
+            out[6] = Math.fma(w * y1, y2, out[6]);
+            out[7] = Math.fma(w * y1, y3, out[7]);
+            out[8] = Math.fma(w * y2, y2, out[8]);
+            out[9] = Math.fma(w * y2, y3, out[9]);
+            out[10] = Math.fma(w * y3, y3, out[10]);
+        }
+    }
+
+    /**
+     * Gamma / lognormal with at most one category: moments of (u, f2, rank) under w.
+     *
+     * <p>The reference of each case's log-sum-exp is its first candidate's term (weight exactly
+     * 1, no exp), not the largest term: the sums are then at least 1 and, for any data where the
+     * terms of one case differ by less than log(1e20) ~ 46, at most m 1e20. A case whose sum
+     * exceeds {@link #LARGE} (or is NaN) is redone with the largest term as reference, so the
+     * product of the sums (see below) cannot overflow. One fused loop per case, straight-line
+     * arithmetic, no scratch arrays.
+     */
     private Acc linearPass(double[] theta, int from, int to, boolean hs) {
         double[] c = new double[18];
         family.linearCoefficients(theta[0], theta[1], c);
@@ -269,61 +319,82 @@ final class AmbiguousLikelihood implements LogLikelihood {
         final double[] du = data.dur;
         final int[] rk = data.rank;
         final int[] off = data.offset;
-        double[] t = new double[data.maxM];
-        double sumMax = 0;
+        final double[] fb = new double[11];
+        double sumRef = 0;
         double logProd = 0;
         double prod = 1;
         double g0 = 0, g1 = 0, g2 = 0;
         double h00 = 0, h01 = 0, h02 = 0, h11 = 0, h12 = 0, h22 = 0;
         for (int i = from; i < to; i++) {
-            int a = off[i];
-            int b = off[i + 1];
-            double mx = Double.NEGATIVE_INFINITY;
-            for (int j = a; j < b; j++) {
-                double f2 = square ? u[j] * u[j] : du[j];
-                double tj = Math.fma(b1, u[j], Math.fma(b2, f2, Math.fma(rk[j], logq, logp)));
-                t[j - a] = tj;
-                mx = Math.max(mx, tj);
-            }
-            double s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+            final int a = off[i];
+            final int b = off[i + 1];
+            final double x1 = u[a];
+            final double x2 = square ? x1 * x1 : du[a];
+            final double x3 = rk[a];
+            double ref = Math.fma(b1, x1, Math.fma(b2, x2, Math.fma(x3, logq, logp)));
+            double s0 = 1, s1 = x1, s2 = x2, s3 = x3;
             if (!hs) {
-                for (int j = a; j < b; j++) {
-                    double w = Math.exp(t[j - a] - mx);
-                    double f2 = square ? u[j] * u[j] : du[j];
+                for (int j = a + 1; j < b; j++) {
+                    final double y1 = u[j];
+                    final double y2 = square ? y1 * y1 : du[j];
+                    final double y3 = rk[j];
+                    final double w = Math.exp(Math.fma(b1, y1, Math.fma(b2, y2, Math.fma(y3, logq, logp))) - ref);
                     s0 += w;
-                    s1 = Math.fma(w, u[j], s1);
-                    s2 = Math.fma(w, f2, s2);
-                    s3 = Math.fma(w, rk[j], s3);
+                    s1 = Math.fma(w, y1, s1);
+                    s2 = Math.fma(w, y2, s2);
+                    s3 = Math.fma(w, y3, s3);
                 }
-                double inv = 1 / s0;
+                if (!(s0 <= LARGE)) {
+                    maxReferenceCase(a, b, b1, b2, logp, logq, square, fb);
+                    ref = fb[0];
+                    s0 = fb[1];
+                    s1 = fb[2];
+                    s2 = fb[3];
+                    s3 = fb[4];
+                }
+                final double inv = 1 / s0;
                 g0 = Math.fma(s1, inv, g0);
                 g1 = Math.fma(s2, inv, g1);
                 g2 = Math.fma(s3, inv, g2);
             } else {
-                double s11 = 0, s12 = 0, s13 = 0, s22 = 0, s23 = 0, s33 = 0;
-                for (int j = a; j < b; j++) {
-                    double w = Math.exp(t[j - a] - mx);
-                    double x1 = u[j];
-                    double x2 = square ? x1 * x1 : du[j];
-                    double x3 = rk[j];
+                double s11 = x1 * x1, s12 = x1 * x2, s13 = x1 * x3, s22 = x2 * x2, s23 = x2 * x3, s33 = x3 * x3;
+                for (int j = a + 1; j < b; j++) {
+                    final double y1 = u[j];
+                    final double y2 = square ? y1 * y1 : du[j];
+                    final double y3 = rk[j];
+                    final double w = Math.exp(Math.fma(b1, y1, Math.fma(b2, y2, Math.fma(y3, logq, logp))) - ref);
+                    final double w1 = w * y1;
+                    final double w2 = w * y2;
+                    final double w3 = w * y3;
                     s0 += w;
-                    double w1 = w * x1;
-                    double w2 = w * x2;
-                    double w3 = w * x3;
-                    s1 += w1;
-                    s2 += w2;
-                    s3 += w3;
-                    s11 = Math.fma(w1, x1, s11);
-                    s12 = Math.fma(w1, x2, s12);
-                    s13 = Math.fma(w1, x3, s13);
-                    s22 = Math.fma(w2, x2, s22);
-                    s23 = Math.fma(w2, x3, s23);
-                    s33 = Math.fma(w3, x3, s33);
+                    s1 = Math.fma(w, y1, s1);
+                    s2 = Math.fma(w, y2, s2);
+                    s3 = Math.fma(w, y3, s3);
+                    s11 = Math.fma(w1, y1, s11);
+                    s12 = Math.fma(w1, y2, s12);
+                    s13 = Math.fma(w1, y3, s13);
+                    s22 = Math.fma(w2, y2, s22);
+                    s23 = Math.fma(w2, y3, s23);
+                    s33 = Math.fma(w3, y3, s33);
                 }
-                double inv = 1 / s0;
-                double m1 = s1 * inv;
-                double m2 = s2 * inv;
-                double m3 = s3 * inv;
+                if (!(s0 <= LARGE)) {
+                    maxReferenceCase(a, b, b1, b2, logp, logq, square, fb);
+                    ref = fb[0];
+                    s0 = fb[1];
+                    s1 = fb[2];
+                    s2 = fb[3];
+                    s3 = fb[4];
+                    s11 = fb[5];
+                    s12 = fb[6];
+                    s13 = fb[7];
+                    s22 = fb[8];
+                    s23 = fb[9];
+                    s33 = fb[10];
+                }
+                final double inv = 1 / s0;
+                final double m1 = s1 * inv;
+                final double m2 = s2 * inv;
+                final double m3 = s3 * inv;
                 g0 += m1;
                 g1 += m2;
                 g2 += m3;
@@ -334,7 +405,7 @@ final class AmbiguousLikelihood implements LogLikelihood {
                 h12 += s23 * inv - m2 * m3;
                 h22 += s33 * inv - m3 * m3;
             }
-            sumMax += mx;
+            sumRef += ref;
             prod *= s0;
             if (prod > RESCALE) {
                 logProd += Math.log(prod);
@@ -342,7 +413,7 @@ final class AmbiguousLikelihood implements LogLikelihood {
             }
         }
         Acc acc = new Acc();
-        acc.value = sumMax + logProd + Math.log(prod);
+        acc.value = sumRef + logProd + Math.log(prod);
         acc.g[0] = g0;
         acc.g[1] = g1;
         if (k == 1) {

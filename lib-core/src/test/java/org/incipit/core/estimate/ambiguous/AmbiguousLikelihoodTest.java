@@ -147,6 +147,58 @@ class AmbiguousLikelihoodTest {
         }
     }
 
+    /**
+     * The gamma / lognormal pass takes each case's first candidate as log-sum-exp reference and
+     * redoes a case with the largest term when its sum exceeds 1e20 (a later term more than
+     * log(1e20) ~ 46 above the first; beyond ~709 the exp overflows). Here first candidates lie
+     * 300 and 2000 days back (terms ~ -180 and ~ -1200 against ~ -2): value against the direct
+     * sum of textbook densities, value and derivatives against the general (largest-term) pass.
+     */
+    @ParameterizedTest
+    @MethodSource("farFirstFamilies")
+    void farFirstCandidateFallsBackToLargestTermReference(Family f, double[] theta) {
+        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(SEED + 7);
+        Sim.Cases c = new Sim.Cases();
+        for (int i = 0; i < 30; i++) {
+            int m = 1 + rng.nextInt(4);
+            double end = 2500 + 5 * rng.nextDouble();
+            double[] s = new double[m + 1];
+            s[0] = end - (i % 3 == 0 ? 2000 : i % 3 == 1 ? 300 : 8);
+            for (int j = 1; j <= m; j++) {
+                s[j] = end - 0.5 - 9 * rng.nextDouble();
+            }
+            java.util.Arrays.sort(s);
+            c.add(end, s, new int[m + 1], m + 1);
+        }
+        Prepared d = c.prepare(1, true);
+        ExposureHistory h = ExposureHistory.open();
+        AmbiguousLikelihood fast = new AmbiguousLikelihood(d, f, h, false, true);
+        AmbiguousLikelihood general = new AmbiguousLikelihood(d, f, h, true, true);
+        double expected = direct(d, f, h, theta);
+        double v = fast.value(theta);
+        assertEquals(expected, v, 1e-11 * Math.abs(expected), "value vs direct sum");
+        double[] g1 = new double[3];
+        double[] g2 = new double[3];
+        assertEquals(v, fast.valueAndGradient(theta, g1), 0, "same value with gradient");
+        assertEquals(general.valueAndGradient(theta, g2), v, 1e-12 * Math.abs(v), "value vs general pass");
+        double[] h1 = new double[9];
+        double[] h2 = new double[9];
+        fast.hessian(theta, h1);
+        general.hessian(theta, h2);
+        for (int a = 0; a < 3; a++) {
+            assertEquals(g2[a], g1[a], 1e-10 * Math.max(1, Math.abs(g2[a])), "gradient " + a);
+            for (int b = 0; b < 3; b++) {
+                assertEquals(h2[a * 3 + b], h1[a * 3 + b], 1e-10 * Math.max(1, Math.abs(h2[a * 3 + b])),
+                        "hessian " + a + "," + b);
+            }
+        }
+    }
+
+    static Stream<Arguments> farFirstFamilies() {
+        return Stream.of(Arguments.of(Family.GAMMA, new double[] {Math.log(3), Math.log(0.6), -0.3}),
+                Arguments.of(Family.LOGNORMAL, new double[] {1.2, Math.log(0.5), 0.4}));
+    }
+
     @Test
     void splitEvaluationEqualsSinglePass() {
         UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(SEED);
