@@ -8,6 +8,14 @@
  * input (message on stderr naming file, line and column), 3 estimation failed, 1 internal
  * error.
  *
+ * <h2>Commands</h2>
+ * {@code check} (read a file, no estimation), {@code simulate} (write a simulated scenario in the
+ * input formats with its true values; the defaults regenerate the shipped demo data),
+ * {@code growth}, {@code reproduction}, {@code intervals}, {@code delays}, {@code incubation},
+ * {@code fatality} (one estimator each, {@code --json} for one JSON object), {@code study},
+ * and {@code demo} / {@code analyse} (the whole analysis written as a report folder with
+ * {@code report.html}, {@code results.json} and {@code figures/}).
+ *
  * <h2>Adding a command</h2>
  * <pre>{@code
  * @Command(name = "delays", mixinStandardHelpOptions = true, description = "...")

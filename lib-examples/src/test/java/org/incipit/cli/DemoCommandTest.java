@@ -173,4 +173,30 @@ class DemoCommandTest {
         assertEquals(ExitCode.BAD_INPUT, r.code());
         assertTrue(r.err().startsWith("incipit: " + bad + ":3:1: day '2' does not follow day '0'"), r.err());
     }
+
+    @Test
+    void analyseOnAllFilesGivesEverySectionWithoutTruth() {
+        Path o = dir.resolve("analyse-all");
+        Path data = out.resolve("data");
+        CliRun r = CliRun.of("analyse", "--counts", data.resolve("counts.csv").toString(),
+                "--intervals", data.resolve("intervals.csv").toString(),
+                "--incubation", data.resolve("incubation.csv").toString(),
+                "--delays", data.resolve("delays.csv").toString(),
+                "--generation-mean", "6", "--generation-sd", "3", "--out", o.toString(), "--json");
+        assertEquals(0, r.code(), r.err());
+        JsonNode j = JsonOutput.read(r.out());
+        assertEquals(0, j.get("failures").size(), j.get("failures").toString());
+        for (String k : new String[] {"growth", "reproduction", "reproductionOverTime", "intervals", "incubation",
+            "delays", "fatality"}) {
+            assertTrue(j.has(k) && !j.get(k).isNull(), k);
+        }
+        // without --cutoff the latest death in the file is the cut-off (2031-05-31 in the demo data)
+        JsonNode demo = JsonOutput.read(demo().out());
+        assertEquals(demo.at("/delays/cutoff").asDouble(), j.at("/delays/cutoff").asDouble());
+        assertTrue(!j.has("truth"));
+    }
+
+    private static CliRun demo() {
+        return DemoCommandTest.demo;
+    }
 }
