@@ -138,4 +138,22 @@ class GrowthCommandTest {
         assertTrue(run.code() == ExitCode.BAD_INPUT || run.code() == ExitCode.ESTIMATION_FAILED, run.err());
         assertTrue(run.err().startsWith("incipit: "), run.err());
     }
+
+    @Test
+    void negativeBinomialOnTheDemoCounts() throws IOException {
+        Path p = dir.resolve("counts.csv");
+        try (var in = GrowthCommandTest.class.getResourceAsStream(DemoCommand.RESOURCES + "counts.csv")) {
+            Files.write(p, in.readAllBytes());
+        }
+        CliRun run = CliRun.of("growth", "--input", p.toString(), "--model", "negative-binomial", "--json");
+        assertEquals(0, run.code(), run.err());
+        JsonNode j = JsonOutput.read(run.out());
+        assertEquals("negative-binomial", j.get("model").asText());
+        assertTrue(j.get("dispersion").asDouble() > 0, j.toString());
+        JsonNode poisson = JsonOutput.read(CliRun.of("growth", "--input", p.toString(), "--json").out());
+        // the NB interval is at least as wide as the Poisson one (extra variance)
+        double wNb = j.at("/growthRate/upper").asDouble() - j.at("/growthRate/lower").asDouble();
+        double wP = poisson.at("/growthRate/upper").asDouble() - poisson.at("/growthRate/lower").asDouble();
+        assertTrue(wNb >= wP, wNb + " >= " + wP);
+    }
 }
