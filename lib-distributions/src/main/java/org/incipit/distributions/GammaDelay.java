@@ -21,12 +21,14 @@ public final class GammaDelay extends AbstractDelay implements ParametricDelay {
     private final double shape;
     private final double rate;
     private final double logNorm; // shape*log(rate) - logGamma(shape)
+    private final double logGammaShape;
     private final double digammaShape;
 
     private GammaDelay(double shape, double rate) {
         this.shape = shape;
         this.rate = rate;
-        this.logNorm = shape * Math.log(rate) - LogGamma.value(shape);
+        this.logGammaShape = LogGamma.value(shape);
+        this.logNorm = shape * Math.log(rate) - logGammaShape;
         this.digammaShape = Digamma.value(shape);
     }
 
@@ -226,29 +228,48 @@ public final class GammaDelay extends AbstractDelay implements ParametricDelay {
     }
 
     /**
-     * d log F / d(shape, rate); the shape part by {@code IncompleteGammaLog} (series or
-     * log-space quadrature), the rate part x f(x)/(rate F(x)).
+     * d log F / d(shape, rate). With y = rate x, the shape part by the differentiated series
+     * (y &lt; shape + 1) or continued fraction (y &gt; shape + 1), computed in one pass with the
+     * value ({@code IncompleteGammaLog}; digamma and log-gamma of the shape cached); on the
+     * fraction side d log P = -d log Q * Q/P. The rate part is x f(x) / (rate F(x)).
      */
     @Override
     public double[] logCdfGradient(double x) {
         double y = rate * x;
-        double lp = logCdf(x);
-        double lq = logSurvival(x);
-        double[] d = IncompleteGammaLog.dLogDa(shape, y, lp, lq);
-        return new double[] {d[0], x * Math.exp(logDensity(x) - lp) / rate};
+        double logy = Math.log(y);
+        double[] s = new double[3];
+        if (y < shape + 1) {
+            IncompleteGammaLog.lowerWithDerivative(shape, y, logy, logGammaShape, digammaShape, s);
+            return new double[] {s[1], s[2] / rate};
+        }
+        IncompleteGammaLog.upperWithDerivative(shape, y, logy, logGammaShape, digammaShape, s);
+        double lq = s[0];
+        double lp = Math.log1p(-Math.exp(lq));
+        double ratio = Math.exp(lq - lp); // Q/P
+        return new double[] {-s[1] * ratio, s[2] * ratio / rate};
     }
 
-    /** d log S / d(shape, rate); the rate part -x f(x)/(rate S(x)). */
+    /**
+     * d log S / d(shape, rate); as {@link #logCdfGradient}, with the rate part
+     * -x f(x) / (rate S(x)); (0, 0) at x = 0.
+     */
     @Override
     public double[] logSurvivalGradient(double x) {
         if (x == 0) {
             return new double[] {0, 0};
         }
         double y = rate * x;
-        double lp = logCdf(x);
-        double lq = logSurvival(x);
-        double[] d = IncompleteGammaLog.dLogDa(shape, y, lp, lq);
-        return new double[] {d[1], -x * Math.exp(logDensity(x) - lq) / rate};
+        double logy = Math.log(y);
+        double[] s = new double[3];
+        if (y > shape + 1) {
+            IncompleteGammaLog.upperWithDerivative(shape, y, logy, logGammaShape, digammaShape, s);
+            return new double[] {s[1], -s[2] / rate};
+        }
+        IncompleteGammaLog.lowerWithDerivative(shape, y, logy, logGammaShape, digammaShape, s);
+        double lp = s[0];
+        double lq = Math.log1p(-Math.exp(lp));
+        double ratio = Math.exp(lp - lq); // P/Q
+        return new double[] {-s[1] * ratio, -s[2] * ratio / rate};
     }
 
     @Override
