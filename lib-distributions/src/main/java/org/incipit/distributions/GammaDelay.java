@@ -23,6 +23,7 @@ public final class GammaDelay extends AbstractDelay implements ParametricDelay {
     private final double logNorm; // shape*log(rate) - logGamma(shape)
     private final double logGammaShape;
     private final double digammaShape;
+    private final double digammaShape1; // psi(shape + 1)
 
     private GammaDelay(double shape, double rate) {
         this.shape = shape;
@@ -30,6 +31,7 @@ public final class GammaDelay extends AbstractDelay implements ParametricDelay {
         this.logGammaShape = LogGamma.value(shape);
         this.logNorm = shape * Math.log(rate) - logGammaShape;
         this.digammaShape = Digamma.value(shape);
+        this.digammaShape1 = Digamma.value(shape + 1);
     }
 
     /**
@@ -230,23 +232,22 @@ public final class GammaDelay extends AbstractDelay implements ParametricDelay {
     /**
      * d log F / d(shape, rate). With y = rate x, the shape part by the differentiated series
      * (y &lt; shape + 1) or continued fraction (y &gt; shape + 1), computed in one pass with the
-     * value ({@code IncompleteGammaLog}; digamma and log-gamma of the shape cached); on the
+     * value ({@code IncompleteGammaLog}; psi(shape), psi(shape + 1) and log Gamma(shape) cached); on the
      * fraction side d log P = -d log Q * Q/P. The rate part is x f(x) / (rate F(x)).
      */
     @Override
     public double[] logCdfGradient(double x) {
         double y = rate * x;
         double logy = Math.log(y);
-        double[] s = new double[3];
+        double[] s = new double[2];
         if (y < shape + 1) {
-            IncompleteGammaLog.lowerWithDerivative(shape, y, logy, logGammaShape, digammaShape, s);
-            return new double[] {s[1], s[2] / rate};
+            IncompleteGammaLog.lowerWithDerivative(shape, y, logy, digammaShape1, s);
+            return new double[] {s[0], s[1] / rate};
         }
-        IncompleteGammaLog.upperWithDerivative(shape, y, logy, logGammaShape, digammaShape, s);
-        double lq = s[0];
-        double lp = Math.log1p(-Math.exp(lq));
-        double ratio = Math.exp(lq - lp); // Q/P
-        return new double[] {-s[1] * ratio, s[2] * ratio / rate};
+        IncompleteGammaLog.upperWithDerivative(shape, y, logy, digammaShape, s);
+        double q = Math.exp(IncompleteGammaLog.logPrefix(shape, y, logy, logGammaShape)) / s[1];
+        double ratio = q / (1 - q); // Q/P
+        return new double[] {-s[0] * ratio, s[1] * ratio / rate};
     }
 
     /**
@@ -260,16 +261,16 @@ public final class GammaDelay extends AbstractDelay implements ParametricDelay {
         }
         double y = rate * x;
         double logy = Math.log(y);
-        double[] s = new double[3];
+        double[] s = new double[2];
         if (y > shape + 1) {
-            IncompleteGammaLog.upperWithDerivative(shape, y, logy, logGammaShape, digammaShape, s);
-            return new double[] {s[1], -s[2] / rate};
+            IncompleteGammaLog.upperWithDerivative(shape, y, logy, digammaShape, s);
+            return new double[] {s[0], -s[1] / rate};
         }
-        IncompleteGammaLog.lowerWithDerivative(shape, y, logy, logGammaShape, digammaShape, s);
-        double lp = s[0];
-        double lq = Math.log1p(-Math.exp(lp));
-        double ratio = Math.exp(lp - lq); // P/Q
-        return new double[] {-s[1] * ratio, -s[2] * ratio / rate};
+        IncompleteGammaLog.lowerWithDerivative(shape, y, logy, digammaShape1, s);
+        double p = Math.exp(IncompleteGammaLog.logPrefix(shape, y, logy, logGammaShape)) / s[1];
+        // Q = 1 - P loses digits as P -> 1 (small shapes); there Q directly (commons-numbers).
+        double ratio = p / (p < 0.5 ? 1 - p : RegularizedGamma.Q.value(shape, y)); // P/Q
+        return new double[] {-s[0] * ratio, -s[1] * ratio / rate};
     }
 
     @Override

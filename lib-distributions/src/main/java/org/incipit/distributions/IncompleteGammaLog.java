@@ -75,15 +75,15 @@ final class IncompleteGammaLog {
     }
 
     /**
-     * log P(a, y) and d log P / da by the differentiated series; for 0 &lt; y &lt; a + 1.
+     * d log P / da by the differentiated series, with P itself; for 0 &lt; y &lt; a + 1.
      *
      * @param logy     log y
-     * @param logGamma log Gamma(a)
-     * @param psi      psi(a)
-     * @param out      receives {log P, d log P / da, y^a e^-y / (Gamma(a) P)}
+     * @param psi1     psi(a + 1), directly (not psi(a) + 1/a, which cancels for small a)
+     * @param out      receives {d log P / da, y^a e^-y / (Gamma(a) P)}; log P = {@link #logPrefix}
+     *                 - log out[1]
      */
-    static void lowerWithDerivative(double a, double y, double logy, double logGamma, double psi, double[] out) {
-        double psin = psi + 1 / a; // psi(a + 1)
+    static void lowerWithDerivative(double a, double y, double logy, double psi1, double[] out) {
+        double psin = psi1;
         double sum = 1;
         double term = 1;
         double u = psin - logy; // sum_n t_n (psi(a+n+1) - log y), t_0 = 1
@@ -98,20 +98,19 @@ final class IncompleteGammaLog {
                 break;
             }
         }
-        out[0] = logPrefix(a, y, logy, logGamma) - Math.log(a) + Math.log(sum);
-        out[1] = -u / sum;
-        out[2] = a / sum;
+        out[0] = -u / sum;
+        out[1] = a / sum;
     }
 
     /**
-     * log Q(a, y) and d log Q / da by the differentiated continued fraction; for y &gt; a + 1.
+     * d log Q / da by the differentiated continued fraction, with Q itself; for y &gt; a + 1.
      *
      * @param logy     log y
-     * @param logGamma log Gamma(a)
      * @param psi      psi(a)
-     * @param out      receives {log Q, d log Q / da, y^a e^-y / (Gamma(a) Q)}
+     * @param out      receives {d log Q / da, y^a e^-y / (Gamma(a) Q)}; log Q = {@link #logPrefix}
+     *                 - log out[1]
      */
-    static void upperWithDerivative(double a, double y, double logy, double logGamma, double psi, double[] out) {
+    static void upperWithDerivative(double a, double y, double logy, double psi, double[] out) {
         // h = 1/(b_0 + a_1/(b_1 + a_2/(b_2 + ...))), b_j = y + 1 - a + 2j (b_j' = -1),
         // a_j = -j (j - a) (a_j' = j). Lentz: D_j = 1/(b_j + a_j D_{j-1}), C_j = b_j + a_j/C_{j-1},
         // C_1 = b_1 (C_0 = infinity), h = D_0 prod_j C_j D_j.
@@ -121,6 +120,7 @@ final class IncompleteGammaLog {
         double g = d; // d log h / da so far: -b_0'/b_0
         double h = d;
         double c = 0;
+        double ic = 0; // 1 / C_{j-1}
         double dc = 0;
         for (int i = 1; i < 100000; i++) {
             double an = -i * (i - a);
@@ -130,31 +130,30 @@ final class IncompleteGammaLog {
             if (Math.abs(den) < TINY) {
                 den = TINY;
             }
-            double nd = 1 / den;
-            dd = -dden * nd * nd;
-            d = nd;
+            d = 1 / den;
+            double dlogd = -dden * d; // D_j'/D_j
+            dd = dlogd * d;
             if (i == 1) {
                 c = b;
                 dc = -1;
             } else {
-                double ic = 1 / c;
                 dc = -1 + i * ic - an * dc * ic * ic;
                 c = b + an * ic;
             }
             if (Math.abs(c) < TINY) {
                 c = TINY;
             }
+            ic = 1 / c;
             double del = d * c;
-            double dl = dc / c + dd / d;
+            double dl = dc * ic + dlogd;
             h *= del;
             g += dl;
             if (Math.abs(del - 1) < 1e-16 && Math.abs(dl) < 1e-17 * Math.abs(g)) {
                 break;
             }
         }
-        out[0] = logPrefix(a, y, logy, logGamma) + Math.log(h);
-        out[1] = logy - psi + g;
-        out[2] = 1 / h;
+        out[0] = logy - psi + g;
+        out[1] = 1 / h;
     }
 
     /**
