@@ -231,9 +231,9 @@ public final class GammaDelay extends AbstractDelay implements ParametricDelay {
 
     /**
      * d log F / d(shape, rate). With y = rate x, the shape part by the differentiated series
-     * (y &lt; shape + 1) or continued fraction (y &gt; shape + 1), computed in one pass with the
-     * value ({@code IncompleteGammaLog}; psi(shape), psi(shape + 1) and log Gamma(shape) cached); on the
-     * fraction side d log P = -d log Q * Q/P. The rate part is x f(x) / (rate F(x)).
+     * (y &lt; shape + 1) or continued fraction (y &gt; shape + 1) ({@code IncompleteGammaLog};
+     * psi(shape), psi(shape + 1) and log Gamma(shape) cached); on the fraction side
+     * d log P = -d log Q * Q/P. The rate part is x f(x) / (rate F(x)).
      */
     @Override
     public double[] logCdfGradient(double x) {

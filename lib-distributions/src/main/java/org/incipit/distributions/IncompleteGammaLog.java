@@ -9,18 +9,21 @@ import org.apache.commons.numbers.gamma.LogGamma;
  * sum_n y^n / ((a + 1) ... (a + n)). Upper continued fraction (Legendre; A&amp;S 6.5.31,
  * evaluated by the modified Lentz method, Press et al., Numerical Recipes, 3rd ed., 6.2).
  *
- * <p>Shape derivatives, both in one pass with the value:
+ * <p>Shape derivatives (A&amp;S references cited from memory):
  * <ul>
  * <li>y &lt; a + 1: the series terms t_n = y^(a+n) e^-y / Gamma(a + n + 1) each have log-derivative
  * log y - psi(a + n + 1), so d log P / da = log y - sum_n w_n psi(a + n + 1) with the normalised
- * weights w_n = t_n / sum t (all positive, no cancellation); psi(a + n + 1) by the recurrence
- * psi(z + 1) = psi(z) + 1/z (A&amp;S 6.3.5) from one digamma value.</li>
+ * weights w_n = t_n / sum t (all positive, no cancellation in the weights); psi(a + n + 1) by
+ * the recurrence psi(z + 1) = psi(z) + 1/z (A&amp;S 6.3.5) from psi(a + 1).</li>
  * <li>y &gt; a + 1: Q = y^a e^-y h / Gamma(a) with h the continued fraction, so
  * d log Q / da = log y - psi(a) + d log h / da; the Lentz factors C_j, D_j are differentiated
  * alongside (forward recurrences), d log h / da = sum_j (C_j'/C_j + D_j'/D_j) - b_0'/b_0.
- * log y - psi(a) &gt; 0 there (psi(a) &lt; log a, A&amp;S 6.3.21), and d log h / da &gt; 0.</li>
+ * log y - psi(a) &gt; 0 there (psi(a) &lt; log a; common practice), and d log h / da was
+ * positive on every point of a check grid (shapes 1e-9 to 5000, y from a + 1 to 50 (a + 1)),
+ * so the sum does not cancel.</li>
  * </ul>
- * The other side follows from P' = -Q' (P + Q = 1).
+ * The other side follows from P' = -Q' (P + Q = 1). Accuracy against mpmath: see
+ * GammaShapeDerivativeTest.
  */
 final class IncompleteGammaLog {
     private static final double TINY = 1e-300;
