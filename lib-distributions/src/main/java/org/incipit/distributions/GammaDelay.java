@@ -233,11 +233,23 @@ public final class GammaDelay extends AbstractDelay implements ParametricDelay {
      * d log F / d(shape, rate). With y = rate x, the shape part by the differentiated series
      * (y &lt; shape + 1) or continued fraction (y &gt; shape + 1) ({@code IncompleteGammaLog};
      * psi(shape), psi(shape + 1) and log Gamma(shape) cached); on the fraction side
-     * d log P = -d log Q * Q/P. The rate part is x f(x) / (rate F(x)).
+     * d log P = -d log Q * Q/P. The rate part is x f(x) / (rate F(x)). Limits: (-Infinity,
+     * shape/rate) where rate x is 0 (x = 0, or so small that rate x underflows), (0, 0) at
+     * x = +Infinity or where rate x overflows; NaN components for x &lt; 0 or NaN.
      */
     @Override
     public double[] logCdfGradient(double x) {
+        if (!(x > 0 && x < Double.POSITIVE_INFINITY)) {
+            double v = x == 0 ? Double.NEGATIVE_INFINITY : x == Double.POSITIVE_INFINITY ? 0 : Double.NaN;
+            return new double[] {v, x == 0 ? shape / rate : x == Double.POSITIVE_INFINITY ? 0 : Double.NaN};
+        }
         double y = rate * x;
+        if (y == 0) {
+            return new double[] {Double.NEGATIVE_INFINITY, shape / rate};
+        }
+        if (y == Double.POSITIVE_INFINITY) {
+            return new double[] {0, 0};
+        }
         double logy = Math.log(y);
         double[] s = new double[2];
         if (y < shape + 1) {
@@ -252,14 +264,21 @@ public final class GammaDelay extends AbstractDelay implements ParametricDelay {
 
     /**
      * d log S / d(shape, rate); as {@link #logCdfGradient}, with the rate part
-     * -x f(x) / (rate S(x)); (0, 0) at x = 0.
+     * -x f(x) / (rate S(x)). Limits: (0, 0) for x &le; 0 and where rate x underflows to 0,
+     * (+Infinity, -Infinity) at x = +Infinity or where rate x overflows; NaN components for NaN.
      */
     @Override
     public double[] logSurvivalGradient(double x) {
-        if (x == 0) {
-            return new double[] {0, 0};
+        if (Double.isNaN(x)) {
+            return new double[] {Double.NaN, Double.NaN};
         }
         double y = rate * x;
+        if (y == Double.POSITIVE_INFINITY) {
+            return new double[] {Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY};
+        }
+        if (!(y > 0)) {
+            return new double[] {0, 0};
+        }
         double logy = Math.log(y);
         double[] s = new double[2];
         if (y > shape + 1) {

@@ -1,5 +1,6 @@
 package org.incipit.distributions;
 
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.ArrayList;
@@ -46,5 +47,27 @@ class GammaShapeDerivativeTest {
         }
         assertTrue(n >= 1000, "expected the full table, read " + n + " components");
         assertTrue(failures.isEmpty(), () -> failures.size() + " failures:\n" + String.join("\n", failures));
+    }
+
+    /**
+     * Limits at the ends of the support (common practice: F ~ (rate x)^shape / Gamma(shape + 1)
+     * as x -&gt; 0, so d log F / d rate -&gt; shape / rate and d log F / d shape -&gt; -Infinity; S = 1
+     * for x &le; 0; F = 1 and log S -&gt; -Infinity as x -&gt; Infinity).
+     */
+    @Test
+    void limitsAtTheEndsOfTheSupport() {
+        GammaDelay d = GammaDelay.ofShapeRate(2.5, 0.5);
+        double inf = Double.POSITIVE_INFINITY;
+        assertArrayEquals(new double[] {-inf, 5.0}, d.logCdfGradient(0));
+        assertArrayEquals(new double[] {-inf, 5.0}, d.logCdfGradient(Double.MIN_VALUE));
+        assertArrayEquals(new double[] {0, 0}, d.logCdfGradient(inf));
+        assertArrayEquals(new double[] {0, 0}, d.logSurvivalGradient(0));
+        assertArrayEquals(new double[] {0, 0}, d.logSurvivalGradient(-1));
+        assertArrayEquals(new double[] {0, 0}, d.logSurvivalGradient(Double.MIN_VALUE));
+        assertArrayEquals(new double[] {inf, -inf}, d.logSurvivalGradient(inf));
+        assertArrayEquals(new double[] {inf, -inf},
+                GammaDelay.ofShapeRate(2.5, 10).logSurvivalGradient(Double.MAX_VALUE));
+        assertTrue(Double.isNaN(d.logCdfGradient(-1)[0]) && Double.isNaN(d.logCdfGradient(Double.NaN)[1]));
+        assertTrue(Double.isNaN(d.logSurvivalGradient(Double.NaN)[0]));
     }
 }
