@@ -14,7 +14,8 @@ import org.openjdk.jmh.annotations.State;
 
 /**
  * Per-call cost of the distribution layer. Targets: logDensity &le; 30 ns, cdf &le; 150 ns,
- * Weibull and lognormal Laplace transform &le; 5 &micro;s. The argument cycles over 64 points
+ * Weibull and lognormal Laplace transform &le; 5 &micro;s, gamma logCdfGradient and
+ * logSurvivalGradient &le; 0.5 &micro;s. The argument cycles over 64 points
  * spread over the bulk and tails so that no branch is favoured.
  */
 @State(Scope.Thread)
@@ -68,6 +69,11 @@ public class DistributionBenchmarks {
     @Benchmark
     public double[] logDensityGradient() {
         return d.logDensityGradient(nextX());
+    }
+
+    @Benchmark
+    public double[] logCdfGradient() {
+        return d.logCdfGradient(nextX());
     }
 
     @Benchmark

@@ -21,13 +21,17 @@ public final class GammaDelay extends AbstractDelay implements ParametricDelay {
     private final double shape;
     private final double rate;
     private final double logNorm; // shape*log(rate) - logGamma(shape)
+    private final double logGammaShape;
     private final double digammaShape;
+    private final double digammaShape1; // psi(shape + 1)
 
     private GammaDelay(double shape, double rate) {
         this.shape = shape;
         this.rate = rate;
-        this.logNorm = shape * Math.log(rate) - LogGamma.value(shape);
+        this.logGammaShape = LogGamma.value(shape);
+        this.logNorm = shape * Math.log(rate) - logGammaShape;
         this.digammaShape = Digamma.value(shape);
+        this.digammaShape1 = Digamma.value(shape + 1);
     }
 
     /**
@@ -226,29 +230,66 @@ public final class GammaDelay extends AbstractDelay implements ParametricDelay {
     }
 
     /**
-     * d log F / d(shape, rate); the shape part by {@code IncompleteGammaLog} (series or
-     * log-space quadrature), the rate part x f(x)/(rate F(x)).
+     * d log F / d(shape, rate). With y = rate x, the shape part by the differentiated series
+     * (y &lt; shape + 1) or continued fraction (y &gt; shape + 1) ({@code IncompleteGammaLog};
+     * psi(shape), psi(shape + 1) and log Gamma(shape) cached); on the fraction side
+     * d log P = -d log Q * Q/P. The rate part is x f(x) / (rate F(x)). Limits: (-Infinity,
+     * shape/rate) where rate x is 0 (x = 0, or so small that rate x underflows), (0, 0) at
+     * x = +Infinity or where rate x overflows; NaN components for x &lt; 0 or NaN.
      */
     @Override
     public double[] logCdfGradient(double x) {
-        double y = rate * x;
-        double lp = logCdf(x);
-        double lq = logSurvival(x);
-        double[] d = IncompleteGammaLog.dLogDa(shape, y, lp, lq);
-        return new double[] {d[0], x * Math.exp(logDensity(x) - lp) / rate};
-    }
-
-    /** d log S / d(shape, rate); the rate part -x f(x)/(rate S(x)). */
-    @Override
-    public double[] logSurvivalGradient(double x) {
-        if (x == 0) {
-            return new double[] {0, 0};
+        if (!(x > 0 && x < Double.POSITIVE_INFINITY)) {
+            double v = x == 0 ? Double.NEGATIVE_INFINITY : x == Double.POSITIVE_INFINITY ? 0 : Double.NaN;
+            return new double[] {v, x == 0 ? shape / rate : x == Double.POSITIVE_INFINITY ? 0 : Double.NaN};
         }
         double y = rate * x;
-        double lp = logCdf(x);
-        double lq = logSurvival(x);
-        double[] d = IncompleteGammaLog.dLogDa(shape, y, lp, lq);
-        return new double[] {d[1], -x * Math.exp(logDensity(x) - lq) / rate};
+        if (y == 0) {
+            return new double[] {Double.NEGATIVE_INFINITY, shape / rate};
+        }
+        if (y == Double.POSITIVE_INFINITY) {
+            return new double[] {0, 0};
+        }
+        double logy = Math.log(y);
+        double[] s = new double[2];
+        if (y < shape + 1) {
+            IncompleteGammaLog.lowerWithDerivative(shape, y, logy, digammaShape1, s);
+            return new double[] {s[0], s[1] / rate};
+        }
+        IncompleteGammaLog.upperWithDerivative(shape, y, logy, digammaShape, s);
+        double q = Math.exp(IncompleteGammaLog.logPrefix(shape, y, logy, logGammaShape)) / s[1];
+        double ratio = q / (1 - q); // Q/P
+        return new double[] {-s[0] * ratio, s[1] * ratio / rate};
+    }
+
+    /**
+     * d log S / d(shape, rate); as {@link #logCdfGradient}, with the rate part
+     * -x f(x) / (rate S(x)). Limits: (0, 0) for x &le; 0 and where rate x underflows to 0,
+     * (+Infinity, -Infinity) at x = +Infinity or where rate x overflows; NaN components for NaN.
+     */
+    @Override
+    public double[] logSurvivalGradient(double x) {
+        if (Double.isNaN(x)) {
+            return new double[] {Double.NaN, Double.NaN};
+        }
+        double y = rate * x;
+        if (y == Double.POSITIVE_INFINITY) {
+            return new double[] {Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY};
+        }
+        if (!(y > 0)) {
+            return new double[] {0, 0};
+        }
+        double logy = Math.log(y);
+        double[] s = new double[2];
+        if (y > shape + 1) {
+            IncompleteGammaLog.upperWithDerivative(shape, y, logy, digammaShape, s);
+            return new double[] {s[0], -s[1] / rate};
+        }
+        IncompleteGammaLog.lowerWithDerivative(shape, y, logy, digammaShape1, s);
+        double p = Math.exp(IncompleteGammaLog.logPrefix(shape, y, logy, logGammaShape)) / s[1];
+        // Q = 1 - P loses digits as P -> 1 (small shapes); there Q directly (commons-numbers).
+        double ratio = p / (p < 0.5 ? 1 - p : RegularizedGamma.Q.value(shape, y)); // P/Q
+        return new double[] {-s[0] * ratio, -s[1] * ratio / rate};
     }
 
     @Override
