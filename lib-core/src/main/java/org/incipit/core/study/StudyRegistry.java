@@ -92,6 +92,7 @@ public final class StudyRegistry {
     public static StudyRegistry standard() {
         Builder b = builder();
         CalibrationModels.register(b);
+        OutbreakModels.register(b);
         return b.build();
     }
 
