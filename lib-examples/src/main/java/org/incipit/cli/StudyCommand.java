@@ -42,7 +42,9 @@ import picocli.CommandLine.Option;
             "  normal-calibration, exponential-calibration, ambiguous-open-gamma,",
             "  ambiguous-open-weibull, ambiguous-open-lognormal, ambiguous-known-total-gamma,",
             "  ambiguous-poisson-total-gamma, ambiguous-open-gamma-em, growth-poisson,",
-            "  growth-negative-binomial, euler-lotka",
+            "  growth-negative-binomial, euler-lotka, delays-truncated-gamma,",
+            "  delays-truncated-daily-gamma, delays-censored-gamma, incubation-uniform-lognormal,",
+            "  incubation-growing-lognormal, backward-intervals-gamma, fatality-growing",
             "Results are identical for any --threads."})
 public final class StudyCommand extends AbstractCommand {
 
@@ -50,7 +52,9 @@ public final class StudyCommand extends AbstractCommand {
     static final List<String> SHIPPED = List.of("normal-calibration", "exponential-calibration",
             "ambiguous-open-gamma", "ambiguous-open-weibull", "ambiguous-open-lognormal",
             "ambiguous-known-total-gamma", "ambiguous-poisson-total-gamma", "ambiguous-open-gamma-em",
-            "growth-poisson", "growth-negative-binomial", "euler-lotka");
+            "growth-poisson", "growth-negative-binomial", "euler-lotka", "delays-truncated-gamma",
+            "delays-truncated-daily-gamma", "delays-censored-gamma", "incubation-uniform-lognormal",
+            "incubation-growing-lognormal", "backward-intervals-gamma", "fatality-growing");
 
     @Option(names = "--scenario", required = true, paramLabel = "FILE",
             description = "Scenario file, or the name of a shipped scenario.")
