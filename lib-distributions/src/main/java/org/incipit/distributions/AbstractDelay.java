@@ -71,7 +71,7 @@ abstract class AbstractDelay implements DelayDistribution {
             if (!(xn > lo && xn < hi)) {
                 xn = hi == Double.POSITIVE_INFINITY ? 2 * x + 1 : 0.5 * (lo + hi);
             }
-            if (hi - lo <= 4e-16 * hi) {
+            if (hi < Double.POSITIVE_INFINITY && hi - lo <= 4e-16 * hi) { // bracket closed
                 return xn;
             }
             x = xn;

@@ -71,6 +71,13 @@ final class PeakQuadrature {
         if (!(t0 > 0 && t0 < Double.POSITIVE_INFINITY)) {
             t0 = 1;
         }
+        // A mode on an end of [a, b] with a non-zero slope there: the integrand falls off like
+        // exp(-|slope| t), which the curvature (possibly ~0 on a nearly linear log-integrand)
+        // does not see; panels must start at that e-folding length.
+        double slope = Math.abs(h.slope(p));
+        if (slope > 0 && 1 / slope < t0) {
+            t0 = 1 / slope;
+        }
         double sum = side(h, p, hp, b - p, t0, 1) + side(h, p, hp, p - a, t0, -1);
         return hp + Math.log(sum);
     }

@@ -19,8 +19,9 @@ import org.slf4j.LoggerFactory;
  * information at the fitted k, as printed by R's {@code summary.glm}/{@code glm.nb}) and profile
  * likelihood {r : 2[&#8467;(r&#770;) &minus; &#8467;<sub>p</sub>(r)] &le;
  * &chi;&sup2;<sub>1,level</sub>} with all other coefficients and, for NB, k re-maximised at each r
- * (limits found by Brent's method). A profile limit that cannot be bracketed within 50 standard
- * errors (z se) is reported as infinite.
+ * (limits found by safeguarded Newton steps on the signed root from the Wald limits, with the
+ * score at the profile maximum as derivative; Brent's method on a bracket as fallback). A profile
+ * limit that cannot be bracketed within 50 standard errors (z se) is reported as infinite.
  *
  * <p>Days absent from the input are treated as missing, not as zero counts: pass zero counts
  * explicitly. Zero counts are used as observations. Stateless and thread-safe.
@@ -190,7 +191,9 @@ public final class GrowthRateEstimator {
         }
         boolean nb = options.model() == CountModel.NEGATIVE_BINOMIAL;
         double[] zero = new double[n];
-        LogLinearGlm.Result r = LogLinearGlm.fit(x, y, zero, nb, false);
+        CountSums sums = new CountSums(y);
+        LogLinearGlm.Result r = LogLinearGlm.fit(x, y, zero, nb, false, null, Double.NaN, true,
+                sums);
         double rate = r.beta()[1];
         double[][] cov = r.covariance();
         double seRate = Math.sqrt(cov[1][1]);
@@ -219,31 +222,67 @@ public final class GrowthRateEstimator {
             betaRest[j - 1] = r.beta()[j];
         }
         double kHat = r.k();
-        // NB profile warm start: (beta without rate, log k) of the last profile point
+        // NB profile warm start: (beta without rate, log k) extrapolated linearly from the last
+        // two profile points (rs[1], thetas[1]) and (rs[0], thetas[0]); at first the maximum.
         double[] thetaHat = java.util.Arrays.copyOf(betaRest, p);
         thetaHat[p - 1] = Math.log(kHat);
-        double[][] lastTheta = {thetaHat};
+        double[] rs = {Double.NaN, rate};
+        double[][] thetas = {null, thetaHat};
+        // derivative of the last statistic computed, d g / d r (NaN if not available)
+        double[] slope = new double[1];
         java.util.function.DoubleUnaryOperator g;
         if (nb) {
-            double lfyNb = LogLinearGlm.sumLogFactorial(y);
-
+            double[] off = new double[n];
+            double[] start = new double[p - 1];
             g = rr -> {
-                double[] off = new double[n];
                 for (int i = 0; i < n; i++) {
                     off[i] = rr * tc[i];
                 }
-                // warm start from the last profile point (Brent's iterates converge on the limit)
-                double[] start = java.util.Arrays.copyOf(lastTheta[0], p - 1);
+                double[] last = thetas[1];
                 double[] theta = new double[p];
-                double llNewton = LogLinearGlm.newtonNegBin(xProfile, y, off, start,
-                        Math.exp(lastTheta[0][p - 1]), lfyNb, theta);
-                if (!Double.isNaN(llNewton)) {
-                    lastTheta[0] = theta;
-                    return Math.sqrt(Math.max(0, 2 * (llMax - llNewton))) - z;
+                double llNewton = Double.NaN;
+                if (!Double.isNaN(rs[0]) && rs[1] != rs[0]) {
+                    double f = (rr - rs[1]) / (rs[1] - rs[0]);
+                    for (int j = 0; j < p; j++) {
+                        theta[j] = last[j] + f * (last[j] - thetas[0][j]);
+                    }
+                    System.arraycopy(theta, 0, start, 0, p - 1);
+                    llNewton = LogLinearGlm.newtonNegBin(xProfile, y, off, start,
+                            Math.exp(theta[p - 1]), sums, theta);
                 }
-                LogLinearGlm.Result pr = LogLinearGlm.fit(xProfile, y, off, nb, true, betaRest,
-                        kHat, false);
-                return Math.sqrt(Math.max(0, 2 * (llMax - pr.logLik()))) - z;
+                if (Double.isNaN(llNewton)) {
+                    System.arraycopy(last, 0, start, 0, p - 1);
+                    llNewton = LogLinearGlm.newtonNegBin(xProfile, y, off, start,
+                            Math.exp(last[p - 1]), sums, theta);
+                }
+                double ll;
+                double score = 0; // d l / d r at the profile maximum (envelope theorem)
+                if (!Double.isNaN(llNewton)) {
+                    rs[0] = rs[1];
+                    thetas[0] = last;
+                    rs[1] = rr;
+                    thetas[1] = theta;
+                    ll = llNewton;
+                    double k = Math.exp(theta[p - 1]);
+                    for (int i = 0; i < n; i++) {
+                        double eta = off[i];
+                        for (int j = 0; j < p - 1; j++) {
+                            eta += xProfile[i][j] * theta[j];
+                        }
+                        double m = Math.exp(eta);
+                        score += tc[i] * k * (y[i] - m) / (k + m);
+                    }
+                } else {
+                    LogLinearGlm.Result pr = LogLinearGlm.fit(xProfile, y, off, nb, true,
+                            betaRest, kHat, false, sums);
+                    ll = pr.logLik();
+                    double[] m = pr.mu();
+                    double k = pr.k();
+                    for (int i = 0; i < n; i++) {
+                        score += tc[i] * k * (y[i] - m[i]) / (k + m[i]);
+                    }
+                }
+                return rootStatistic(llMax - ll, score, z, slope);
             };
         } else {
             // Poisson with only an intercept and day-of-week cells left: the profile maximum is
@@ -263,23 +302,32 @@ public final class GrowthRateEstimator {
             }
             double lfy = LogLinearGlm.sumLogFactorial(y);
             final double sumYt = syt;
+            double[] sCell = new double[cells];
+            double[] dCell = new double[cells];
             g = rr -> {
-                double[] sCell = new double[cells];
+                java.util.Arrays.fill(sCell, 0);
+                java.util.Arrays.fill(dCell, 0);
                 for (int i = 0; i < n; i++) {
-                    sCell[cell[i]] += Math.exp(rr * tc[i]);
+                    double e = Math.exp(rr * tc[i]);
+                    sCell[cell[i]] += e;
+                    dCell[cell[i]] += tc[i] * e;
                 }
                 double ll = rr * sumYt - lfy;
+                double score = sumYt; // d l_p / d r = sum y t - sum_g Y_g S_g'(r) / S_g(r)
                 for (int c = 0; c < cells; c++) {
                     if (yCell[c] > 0) {
                         ll += yCell[c] * (Math.log(yCell[c] / sCell[c]) - 1);
+                        score -= yCell[c] * dCell[c] / sCell[c];
                     }
                 }
-                return Math.sqrt(Math.max(0, 2 * (llMax - ll))) - z;
+                return rootStatistic(llMax - ll, score, z, slope);
             };
         }
-        double lower = profileLimit(g, rate, -z * seRate);
-        lastTheta[0] = thetaHat; // the other side starts again from the maximum
-        double upper = profileLimit(g, rate, z * seRate);
+        double lower = profileLimit(g, slope, rate, -z * seRate);
+        rs[0] = Double.NaN; // the other side starts again from the maximum
+        rs[1] = rate;
+        thetas[1] = thetaHat;
+        double upper = profileLimit(g, slope, rate, z * seRate);
         Estimate profile = new Estimate(rate, Math.min(lower, rate), Math.max(upper, rate),
                 options.level(), "profile");
         LOG.debug("growth fit [{}, {}] {}: r={} se={} iterations={}", firstDay, lastDay,
@@ -290,12 +338,63 @@ public final class GrowthRateEstimator {
     }
 
     /**
-     * Profile limit on the side of sign(step), step = z se (the Wald half-width). g is the signed
-     * root statistic minus z, nearly linear in r, so Brent's method needs few evaluations; the
-     * bracket starts at 0.8 and 1.25 Wald half-widths and grows geometrically.
+     * sqrt(2 drop) - z, the root statistic minus z, for a log-likelihood drop from the maximum;
+     * slope[0] receives its derivative in r, -score / sqrt(2 drop) (NaN at the maximum).
      */
-    private static double profileLimit(java.util.function.DoubleUnaryOperator g, double rate,
-                                       double step) {
+    private static double rootStatistic(double drop, double score, double z, double[] slope) {
+        double root = Math.sqrt(Math.max(0, 2 * drop));
+        slope[0] = root > 0 ? -score / root : Double.NaN;
+        return root - z;
+    }
+
+    /** Newton steps on the signed root stop when they are below this relative size. */
+    private static final double NEWTON_TOL = 1e-13;
+
+    /**
+     * Profile limit on the side of sign(step), step = z se (the Wald half-width). g is the root
+     * statistic minus z, nearly linear in r, so Newton's method from the Wald limit (with the
+     * derivative from the score at the profile maximum, slope[0] after each call) converges in
+     * about three evaluations. The step is safeguarded: it must stay on its side of the
+     * maximum, inside the known bracket and within 40 half-widths, and g must increase away from
+     * the maximum; otherwise, or without convergence in 30 steps, the bracketing search with
+     * Brent's method below decides (it also reports unbounded limits).
+     */
+    private static double profileLimit(java.util.function.DoubleUnaryOperator g, double[] slope,
+                                       double rate, double step) {
+        double r = rate + step;
+        double inner = rate;                // g < 0 here
+        double outer = rate + 40 * step;    // g >= 0 here once an evaluation shows it
+        for (int it = 0; it < 30; it++) {
+            double v = g.applyAsDouble(r);
+            double d = slope[0];
+            if (v == 0) {
+                return r;
+            }
+            if (v < 0) {
+                inner = r;
+            } else {
+                outer = r;
+            }
+            double next = r - v / d;
+            boolean inside = (next - inner) * step > 0 && (outer - next) * step > 0;
+            if (!(d * step > 0) || !inside) {
+                break;
+            }
+            if (Math.abs(next - r) <= NEWTON_TOL * (Math.abs(r) + Math.abs(step))) {
+                return next;
+            }
+            r = next;
+        }
+        return bracketedLimit(g, rate, step);
+    }
+
+    /**
+     * Fallback for {@link #profileLimit}: the bracket starts at 0.8 and 1.25 Wald half-widths and
+     * grows geometrically; Brent's method then finds the root. A limit not bracketed within 50
+     * half-widths is infinite.
+     */
+    private static double bracketedLimit(java.util.function.DoubleUnaryOperator g, double rate,
+                                         double step) {
         double inner = rate + 0.8 * step;
         if (!(g.applyAsDouble(inner) < 0)) {
             inner = rate;

@@ -49,6 +49,13 @@ final class LogLinearGlm {
      */
     static Result fit(double[][] x, double[] y, double[] offset, boolean negBin, boolean capK,
                       double[] betaStart, double kStart, boolean withCovariance) {
+        return fit(x, y, offset, negBin, capK, betaStart, kStart, withCovariance,
+                new CountSums(y));
+    }
+
+    /** As above, with the count sums of {@code y} precomputed by the caller. */
+    static Result fit(double[][] x, double[] y, double[] offset, boolean negBin, boolean capK,
+                      double[] betaStart, double kStart, boolean withCovariance, CountSums cs) {
         int n = y.length;
         int p = n == 0 ? 0 : x[0].length;
         double[] mu = new double[n];
@@ -62,7 +69,6 @@ final class LogLinearGlm {
             updateMu(x, offset, beta, mu, y, Double.POSITIVE_INFINITY);
         }
         double k = Double.POSITIVE_INFINITY;
-        double lfy = sumLogFactorial(y);
         int iterations = 0;
         boolean converged;
         if (!negBin) {
@@ -95,14 +101,14 @@ final class LogLinearGlm {
             double prev = Double.NEGATIVE_INFINITY;
             converged = false;
             for (int outer = 0; outer < MAX_OUTER; outer++) {
-                k = mlK(y, mu, k, capK, lfy);
+                k = mlK(y, mu, k, capK, cs);
                 o = irls(x, y, offset, mu, beta, k, p == 0);
                 iterations += o.iterations;
-                double ll = logLik(y, mu, k, lfy);
+                double ll = logLik(y, mu, k, cs);
                 if (o.converged && Math.abs(ll - prev) <= 1e-7 * (Math.abs(ll) + 1) && p > 0) {
                     // close: polish (beta, log k) jointly by Newton (quadratic convergence)
                     double[] theta = new double[p + 1];
-                    double llN = newtonNegBin(x, y, offset, beta, k, lfy, theta);
+                    double llN = newtonNegBin(x, y, offset, beta, k, cs, theta);
                     if (!Double.isNaN(llN)) {
                         if (theta[p] > Math.log(K_CAP) && !capK) {
                             throw new EstimationException("negative binomial growth fit: the "
@@ -118,13 +124,13 @@ final class LogLinearGlm {
                 }
                 if (o.converged && Math.abs(ll - prev) <= 1e-13 * (Math.abs(ll) + 1)) {
                     converged = true;
-                    k = mlK(y, mu, k, capK, lfy);
+                    k = mlK(y, mu, k, capK, cs);
                     break;
                 }
                 prev = ll;
             }
         }
-        double ll = logLik(y, mu, k, lfy);
+        double ll = logLik(y, mu, k, cs);
         if (!withCovariance) {
             return new Result(beta, null, k, ll, Double.NaN, Double.NaN, iterations, converged, mu);
         }
@@ -257,7 +263,7 @@ final class LogLinearGlm {
     }
 
     static double logLik(double[] y, double[] mu, double k) {
-        return logLik(y, mu, k, sumLogFactorial(y));
+        return logLik(y, mu, k, new CountSums(y));
     }
 
     static double sumLogFactorial(double[] y) {
@@ -268,20 +274,20 @@ final class LogLinearGlm {
         return s;
     }
 
-    /** Full log-likelihood; {@code lfy} is the sum of log y! (constant, computed once). */
-    static double logLik(double[] y, double[] mu, double k, double lfy) {
-        double s = -lfy;
+    /** Full log-likelihood; {@code cs} holds the sums over the counts (computed once). */
+    static double logLik(double[] y, double[] mu, double k, CountSums cs) {
+        double s = -cs.logFactorialSum();
         if (Double.isInfinite(k)) {
             for (int i = 0; i < y.length; i++) {
                 s += (y[i] > 0 ? y[i] * Math.log(mu[i]) : 0) - mu[i];
             }
             return s;
         }
-        double lgk = LogGamma.value(k);
+        double[] lg = new double[y.length];
+        cs.logGammaRatios(k, lg);
         for (int i = 0; i < y.length; i++) {
             double km = k + mu[i];
-            s += LogGamma.value(y[i] + k) - lgk
-                    + k * Math.log(k / km) + (y[i] > 0 ? y[i] * Math.log(mu[i] / km) : 0);
+            s += lg[i] + k * Math.log(k / km) + (y[i] > 0 ? y[i] * Math.log(mu[i] / km) : 0);
         }
         return s;
     }
@@ -308,13 +314,13 @@ final class LogLinearGlm {
      * back to the IRLS/k alternation.
      */
     static double newtonNegBinLogLik(double[][] x, double[] y, double[] offset, double[] betaStart,
-                                     double kStart, double lfy) {
-        return newtonNegBin(x, y, offset, betaStart, kStart, lfy, null);
+                                     double kStart, CountSums cs) {
+        return newtonNegBin(x, y, offset, betaStart, kStart, cs, null);
     }
 
     /** As {@link #newtonNegBinLogLik}; if thetaOut is not null it receives (beta, log k). */
     static double newtonNegBin(double[][] x, double[] y, double[] offset, double[] betaStart,
-                               double kStart, double lfy, double[] thetaOut) {
+                               double kStart, CountSums cs, double[] thetaOut) {
         int n = y.length;
         int p = betaStart.length;
         int q = p + 1;
@@ -322,25 +328,28 @@ final class LogLinearGlm {
         System.arraycopy(betaStart, 0, theta, 0, p);
         theta[p] = Math.log(kStart);
         double[] mu = new double[n];
-        double ll = nbAt(x, offset, theta, mu, y, lfy);
+        double[] logRatio = new double[n]; // log(k / (k + mu_i)) at the current point
+        double ll = nbAt(x, offset, theta, mu, y, cs, logRatio);
         DMatrixRMaj h = new DMatrixRMaj(q, q);
         DMatrixRMaj grad = new DMatrixRMaj(q, 1);
         DMatrixRMaj step = new DMatrixRMaj(q, 1);
         LinearSolverDense<DMatrixRMaj> solver = LinearSolverFactory_DDRM.symmPosDef(q);
+        double[] sums = new double[2];
         for (int it = 0; it < 50; it++) {
             double k = Math.exp(theta[p]);
             h.zero();
             grad.zero();
-            double dk = 0;
-            double dkk = 0;
-            double digK = Digamma.value(k);
-            double trigK = Trigamma.value(k);
+            cs.digammaSums(k, sums);
+            double dk = sums[0];
+            double dkk = sums[1];
+            double invK = 1 / k;
             for (int i = 0; i < n; i++) {
                 double m = mu[i];
-                double km = k + m;
-                double ge = k * (y[i] - m) / km;          // dl/deta
-                double hee = (y[i] + k) * k * m / (km * km); // -d2l/deta2
-                double hek = k * (y[i] - m) * m / (km * km); // d2l/deta du
+                double inv = 1 / (k + m);
+                double inv2 = inv * inv;
+                double ge = k * (y[i] - m) * inv;          // dl/deta
+                double hee = (y[i] + k) * k * m * inv2;    // -d2l/deta2
+                double hek = k * (y[i] - m) * m * inv2;    // d2l/deta du
                 double[] xi = x[i];
                 for (int r = 0; r < p; r++) {
                     grad.data[r] += ge * xi[r];
@@ -349,8 +358,8 @@ final class LogLinearGlm {
                     }
                     h.data[p * q + r] -= hek * xi[r];
                 }
-                dk += digammaShift(y[i], k, digK) + Math.log(k / km) + 1 - (y[i] + k) / km;
-                dkk += trigammaShift(y[i], k, trigK) + 1 / k - 2 / km + (y[i] + k) / (km * km);
+                dk += logRatio[i] + 1 - (y[i] + k) * inv;
+                dkk += invK - 2 * inv + (y[i] + k) * inv2;
             }
             double gu = k * dk;
             grad.data[p] = gu;
@@ -371,7 +380,7 @@ final class LogLinearGlm {
                 for (int r = 0; r < q; r++) {
                     theta[r] = old[r] + t * step.data[r];
                 }
-                llNew = nbAt(x, offset, theta, mu, y, lfy);
+                llNew = nbAt(x, offset, theta, mu, y, cs, logRatio);
                 if (llNew >= ll - 1e-12 * Math.abs(ll)) {
                     break;
                 }
@@ -396,8 +405,9 @@ final class LogLinearGlm {
         return Double.NaN;
     }
 
+    /** Sets mu at theta = (beta, log k), fills logRatio, returns the log-likelihood. */
     private static double nbAt(double[][] x, double[] offset, double[] theta, double[] mu,
-                               double[] y, double lfy) {
+                               double[] y, CountSums cs, double[] logRatio) {
         int p = theta.length - 1;
         for (int i = 0; i < mu.length; i++) {
             double eta = offset[i];
@@ -406,7 +416,19 @@ final class LogLinearGlm {
             }
             mu[i] = Math.exp(eta);
         }
-        return logLik(y, mu, Math.exp(theta[p]), lfy);
+        double k = Math.exp(theta[p]);
+        if (Double.isInfinite(k)) {
+            return logLik(y, mu, k, cs);
+        }
+        cs.logGammaRatios(k, logRatio); // logRatio used as scratch for the ln Gamma ratios first
+        double s = -cs.logFactorialSum();
+        for (int i = 0; i < y.length; i++) {
+            double km = k + mu[i];
+            double lr = Math.log(k / km);
+            s += logRatio[i] + k * lr + (y[i] > 0 ? y[i] * Math.log(mu[i] / km) : 0);
+            logRatio[i] = lr;
+        }
+        return s;
     }
 
     /** Counts up to this use the recurrence sums below instead of two special-function calls. */
@@ -451,32 +473,47 @@ final class LogLinearGlm {
         return Double.isFinite(k0) && k0 > 0 ? Math.min(k0, 1e6) : 1.0;
     }
 
-    /** Maximises the NB2 log-likelihood in k at fixed mu by safeguarded Newton on log k. */
-    static double mlK(double[] y, double[] mu, double kStart, boolean capK, double lfy) {
+    /** Relative size of the k-score below which it is rounding noise (common practice). */
+    private static final double SCORE_NOISE = 32 * 0x1.0p-52;
+
+    /**
+     * Maximises the NB2 log-likelihood in k at fixed mu by safeguarded Newton on log k; stops when
+     * the step is below 1e-12 or the score is at its rounding level.
+     */
+    static double mlK(double[] y, double[] mu, double kStart, boolean capK, CountSums cs) {
         double u = Math.log(kStart);
-        double ll = logLik(y, mu, Math.exp(u), lfy);
+        double ll = logLik(y, mu, Math.exp(u), cs);
+        double[] sums = new double[2];
         for (int it = 1; it <= 200; it++) {
             double k = Math.exp(u);
-            double s = 0;
-            double h = 0;
-            double digK = Digamma.value(k);
-            double trigK = Trigamma.value(k);
+            cs.digammaSums(k, sums);
+            double s = sums[0];
+            double h = sums[1];
+            double scale = Math.abs(s); // sum of the magnitudes added into s (rounding scale)
             for (int i = 0; i < y.length; i++) {
                 double km = k + mu[i];
-                s += digammaShift(y[i], k, digK) + Math.log(k / km) + (mu[i] - y[i]) / km;
-                h += trigammaShift(y[i], k, trigK) + 1 / k - 2 / km + (y[i] + k) / (km * km);
+                double lr = Math.log(k / km);
+                double d = (mu[i] - y[i]) / km;
+                s += lr + d;
+                scale += Math.abs(lr) + Math.abs(d);
+                h += 1 / k - 2 / km + (y[i] + k) / (km * km);
             }
             double gu = k * s;
             double hu = k * s + k * k * h;
+            if (hu < 0 && Math.abs(s) <= SCORE_NOISE * scale) {
+                // the score is at its rounding level: Newton steps would only be noise (this
+                // happens for large k, where the k-likelihood is flat and s cancels heavily)
+                return k;
+            }
             double step = hu < 0 ? -gu / hu : (gu > 0 ? 1.0 : -1.0);
             step = Math.max(-3, Math.min(3, step));
             double uNew = u + step;
-            double llNew = logLik(y, mu, Math.exp(uNew), lfy);
+            double llNew = logLik(y, mu, Math.exp(uNew), cs);
             int halvings = 0;
             while (!(llNew >= ll - 1e-12 * Math.abs(ll)) && halvings < 40) {
                 step *= 0.5;
                 uNew = u + step;
-                llNew = logLik(y, mu, Math.exp(uNew), lfy);
+                llNew = logLik(y, mu, Math.exp(uNew), cs);
                 halvings++;
             }
             u = uNew;
