@@ -40,7 +40,7 @@ class LogLogisticDelayTest {
                 String[] f = line.split(",");
                 double[] v = new double[f.length];
                 for (int i = 0; i < f.length; i++) {
-                    v[i] = Double.parseDouble(f[i]);
+                    v[i] = f[i].equals("inf") ? Double.POSITIVE_INFINITY : Double.parseDouble(f[i]); // python repr
                 }
                 rows.add(v);
             }
