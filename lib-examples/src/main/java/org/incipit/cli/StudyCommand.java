@@ -42,8 +42,8 @@ import picocli.CommandLine.Option;
             "  normal-calibration, exponential-calibration, ambiguous-open-gamma,",
             "  ambiguous-open-weibull, ambiguous-open-lognormal, ambiguous-known-total-gamma,",
             "  ambiguous-poisson-total-gamma, ambiguous-open-gamma-em, growth-poisson,",
-            "  growth-negative-binomial, euler-lotka, delays-truncated-gamma,",
-            "  delays-truncated-daily-gamma, delays-censored-gamma, incubation-uniform-lognormal,",
+            "  growth-negative-binomial, euler-lotka, delays-truncated-lognormal,",
+            "  delays-truncated-daily-lognormal, delays-censored-lognormal, incubation-uniform-lognormal,",
             "  incubation-growing-lognormal, backward-intervals-gamma, fatality-growing",
             "Results are identical for any --threads."})
 public final class StudyCommand extends AbstractCommand {
@@ -52,8 +52,8 @@ public final class StudyCommand extends AbstractCommand {
     static final List<String> SHIPPED = List.of("normal-calibration", "exponential-calibration",
             "ambiguous-open-gamma", "ambiguous-open-weibull", "ambiguous-open-lognormal",
             "ambiguous-known-total-gamma", "ambiguous-poisson-total-gamma", "ambiguous-open-gamma-em",
-            "growth-poisson", "growth-negative-binomial", "euler-lotka", "delays-truncated-gamma",
-            "delays-truncated-daily-gamma", "delays-censored-gamma", "incubation-uniform-lognormal",
+            "growth-poisson", "growth-negative-binomial", "euler-lotka", "delays-truncated-lognormal",
+            "delays-truncated-daily-lognormal", "delays-censored-lognormal", "incubation-uniform-lognormal",
             "incubation-growing-lognormal", "backward-intervals-gamma", "fatality-growing");
 
     @Option(names = "--scenario", required = true, paramLabel = "FILE",
