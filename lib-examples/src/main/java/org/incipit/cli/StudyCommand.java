@@ -39,12 +39,22 @@ import picocli.CommandLine.Option;
             "  mean = 5   sd = 2   sizes = 5, 10, 20   replicates = 1000",
             "  seed = 20261201",
             "Shipped scenarios (give the name instead of a file):",
-            "  normal-calibration, exponential-calibration",
+            "  normal-calibration, exponential-calibration, ambiguous-open-gamma,",
+            "  ambiguous-open-weibull, ambiguous-open-lognormal, ambiguous-known-total-gamma,",
+            "  ambiguous-poisson-total-gamma, ambiguous-open-gamma-em, growth-poisson,",
+            "  growth-negative-binomial, euler-lotka, delays-truncated-lognormal,",
+            "  delays-truncated-daily-lognormal, delays-censored-lognormal, incubation-uniform-lognormal,",
+            "  incubation-growing-lognormal, backward-intervals-gamma, fatality-growing",
             "Results are identical for any --threads."})
 public final class StudyCommand extends AbstractCommand {
 
     /** Scenarios shipped as resources, runnable by name. */
-    static final List<String> SHIPPED = List.of("normal-calibration", "exponential-calibration");
+    static final List<String> SHIPPED = List.of("normal-calibration", "exponential-calibration",
+            "ambiguous-open-gamma", "ambiguous-open-weibull", "ambiguous-open-lognormal",
+            "ambiguous-known-total-gamma", "ambiguous-poisson-total-gamma", "ambiguous-open-gamma-em",
+            "growth-poisson", "growth-negative-binomial", "euler-lotka", "delays-truncated-lognormal",
+            "delays-truncated-daily-lognormal", "delays-censored-lognormal", "incubation-uniform-lognormal",
+            "incubation-growing-lognormal", "backward-intervals-gamma", "fatality-growing");
 
     @Option(names = "--scenario", required = true, paramLabel = "FILE",
             description = "Scenario file, or the name of a shipped scenario.")

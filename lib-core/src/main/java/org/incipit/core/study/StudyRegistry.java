@@ -85,13 +85,27 @@ public final class StudyRegistry {
      * chi-square interval) and {@code exponential-rate-mle} (target rate, exact chi-square
      * interval). Their coverage is exact, so they check the harness itself.
      *
-     * <p>Estimators of outbreak quantities are added here as they are written.
+     * <p>It also holds the outbreak models (docs/scenarios.md lists names, settings and
+     * targets): generators {@code ambiguous-starts} and {@code growth-counts}; estimators
+     * {@code ambiguous-ml-gamma}, {@code ambiguous-ml-weibull}, {@code ambiguous-ml-lognormal},
+     * {@code ambiguous-moments}, {@code ambiguous-em}, {@code naive-latest},
+     * {@code naive-earliest}, {@code naive-midpoint}, {@code naive-single-only},
+     * {@code growth-poisson}, {@code growth-nb}, {@code euler-lotka-known-gi} and
+     * {@code euler-lotka-estimated-gi}; and the delay models: generators
+     * {@code truncated-delays}, {@code censored-delays}, {@code backward-intervals},
+     * {@code incubation-windows}, {@code fatality-counts}; estimators {@code delay-truncated},
+     * {@code delay-censored}, {@code delay-observed-only}, {@code interval-growth-weighted},
+     * {@code interval-backward-naive}, {@code backward-R-corrected}, {@code backward-R-naive},
+     * {@code incubation-interval-censored}, {@code incubation-uniform},
+     * {@code incubation-growing}, {@code fatality-crude}, {@code fatality-window-adjusted}.
      *
      * @return the standard registry
      */
     public static StudyRegistry standard() {
         Builder b = builder();
         CalibrationModels.register(b);
+        OutbreakModels.register(b);
+        DelayModels.register(b);
         return b.build();
     }
 
