@@ -40,8 +40,8 @@ final class TimeScale {
                     continue;
                 }
                 String v = table.value(row, column);
-                boolean isDate = DATE.matcher(v).matches();
-                boolean isNumber = NUMBER.matcher(v).matches();
+                boolean isDate = isDate(v);
+                boolean isNumber = isNumber(v);
                 if (!isDate && !isNumber) {
                     continue;
                 }
@@ -80,6 +80,69 @@ final class TimeScale {
         return new TimeScale(dates, origin);
     }
 
+    /**
+     * Whether {@code v} matches {@link #DATE} ({@code \\d{4}-\\d{2}-\\d{2}}); a hand-written scan,
+     * because the readers test every time value and a regex per value dominated large files.
+     */
+    static boolean isDate(String v) {
+        if (v.length() != 10 || v.charAt(4) != '-' || v.charAt(7) != '-') {
+            return false;
+        }
+        for (int i = 0; i < 10; i++) {
+            if (i != 4 && i != 7 && !digit(v.charAt(i))) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /**
+     * Whether {@code v} matches {@link #NUMBER}
+     * ({@code [-+]?(\\d+(\\.\\d*)?|\\.\\d+)([eE][-+]?\\d+)?}), by a hand-written scan.
+     */
+    static boolean isNumber(String v) {
+        int n = v.length();
+        int i = 0;
+        if (i < n && (v.charAt(i) == '-' || v.charAt(i) == '+')) {
+            i++;
+        }
+        int intDigits = 0;
+        while (i < n && digit(v.charAt(i))) {
+            i++;
+            intDigits++;
+        }
+        int fracDigits = 0;
+        if (i < n && v.charAt(i) == '.') {
+            i++;
+            while (i < n && digit(v.charAt(i))) {
+                i++;
+                fracDigits++;
+            }
+        }
+        if (intDigits == 0 && fracDigits == 0) {
+            return false;
+        }
+        if (i < n && (v.charAt(i) == 'e' || v.charAt(i) == 'E')) {
+            i++;
+            if (i < n && (v.charAt(i) == '-' || v.charAt(i) == '+')) {
+                i++;
+            }
+            int expDigits = 0;
+            while (i < n && digit(v.charAt(i))) {
+                i++;
+                expDigits++;
+            }
+            if (expDigits == 0) {
+                return false;
+            }
+        }
+        return i == n;
+    }
+
+    private static boolean digit(char c) {
+        return c >= '0' && c <= '9';
+    }
+
     private static String kind(boolean dates) {
         return dates ? "dates" : "day numbers";
     }
@@ -94,7 +157,7 @@ final class TimeScale {
             throw new RowFault(column, "column '" + column + "': value is missing");
         }
         if (dates) {
-            if (!DATE.matcher(text).matches()) {
+            if (!isDate(text)) {
                 throw new RowFault(column, "column '" + column + "': cannot read '" + text
                         + "' as a date (yyyy-MM-dd)");
             }
@@ -104,7 +167,7 @@ final class TimeScale {
                 throw new RowFault(column, "column '" + column + "': '" + text + "' is not a valid date");
             }
         }
-        if (!NUMBER.matcher(text).matches()) {
+        if (!isNumber(text)) {
             throw new RowFault(column, "column '" + column + "': cannot read '" + text
                     + "' as a day number or a date (yyyy-MM-dd)");
         }
@@ -131,7 +194,7 @@ final class TimeScale {
      */
     double parseExternal(String what, String text) {
         String t = text.trim();
-        if (DATE.matcher(t).matches()) {
+        if (isDate(t)) {
             if (origin == null) {
                 throw new IllegalArgumentException(what + " '" + text
                         + "' is a date, but the file's times are day numbers without an origin date");
@@ -142,7 +205,7 @@ final class TimeScale {
                 throw new IllegalArgumentException(what + " '" + text + "' is not a valid date");
             }
         }
-        if (NUMBER.matcher(t).matches()) {
+        if (isNumber(t)) {
             if (dates) {
                 throw new IllegalArgumentException(what + " '" + text
                         + "' is a day number, but the file's times are dates; give it as a date (yyyy-MM-dd)");
