@@ -255,20 +255,8 @@ public final class Maximiser {
                 double dn = Math.sqrt(dot(d, d));
                 alpha = Math.min(1, 1 / dn);
             }
-            double fn = Double.NaN;
-            boolean accepted = false;
-            for (int b = 0; b < MAX_BACKTRACK; b++) {
-                for (int i = 0; i < k; i++) {
-                    xn[i] = x[i] + alpha * d[i];
-                }
-                fn = eval(ll, xn, gn, run);
-                if (acceptable(f, fn, alpha, slope, dot(gn, d))) {
-                    accepted = true;
-                    break;
-                }
-                alpha *= (Double.isFinite(fn) ? 0.5 : 0.1);
-            }
-            if (!accepted) {
+            double fn = lineSearch(ll, x, d, f, slope, alpha, xn, gn, run);
+            if (Double.isNaN(fn)) {
                 boolean ok = rg <= 1000 * gradientTolerance;
                 return new Optimum(x, f, g, it, run.evaluations, ok,
                         "line search could not increase the value; relative gradient " + rg
@@ -350,20 +338,8 @@ public final class Maximiser {
             }
             double slope = dot(g, d);
             double alpha = 1;
-            double fn = Double.NaN;
-            boolean accepted = false;
-            for (int b = 0; b < MAX_BACKTRACK; b++) {
-                for (int i = 0; i < k; i++) {
-                    xn[i] = x[i] + alpha * d[i];
-                }
-                fn = eval(ll, xn, gn, run);
-                if (acceptable(f, fn, alpha, slope, dot(gn, d))) {
-                    accepted = true;
-                    break;
-                }
-                alpha *= (Double.isFinite(fn) ? 0.5 : 0.1);
-            }
-            if (!accepted) {
+            double fn = lineSearch(ll, x, d, f, slope, alpha, xn, gn, run);
+            if (Double.isNaN(fn)) {
                 boolean ok = rg <= 1000 * gradientTolerance;
                 return new Optimum(x, f, g, it, run.evaluations, ok,
                         "line search could not increase the value; relative gradient " + rg
@@ -431,6 +407,30 @@ public final class Maximiser {
      * rounding) the approximate-Wolfe test of Hager &amp; Zhang (2005): value not below f by more
      * than 1e-14|f| and the directional derivative reduced to at most 0.9 of its initial size.
      */
+    /**
+     * Backtracking line search along d from x (value f, directional slope {@code slope > 0}),
+     * starting at step alpha: halves the step after a finite but unacceptable value, divides it
+     * by 10 after a non-finite one. On success xn and gn hold the accepted point and its
+     * gradient.
+     *
+     * @return the accepted value, or NaN if no step in {@code MAX_BACKTRACK} tries was acceptable
+     */
+    private static double lineSearch(LogLikelihood ll, double[] x, double[] d, double f, double slope,
+                                     double alpha, double[] xn, double[] gn, Run run) {
+        int k = x.length;
+        for (int b = 0; b < MAX_BACKTRACK; b++) {
+            for (int i = 0; i < k; i++) {
+                xn[i] = x[i] + alpha * d[i];
+            }
+            double fn = eval(ll, xn, gn, run);
+            if (acceptable(f, fn, alpha, slope, dot(gn, d))) {
+                return fn;
+            }
+            alpha *= (Double.isFinite(fn) ? 0.5 : 0.1);
+        }
+        return Double.NaN;
+    }
+
     private static boolean acceptable(double f, double fn, double alpha, double slope, double slopeNew) {
         if (!Double.isFinite(fn)) {
             return false;
