@@ -63,7 +63,7 @@ public final class ScalingTable {
             ExposureWindows windows = windows(size);
             row(rows, "incubation, interval-censored gamma (cases)", size,
                     () -> IncubationEstimator.fit(windows, DelayFamilies.GAMMA,
-                            org.incipit.core.estimate.delay.ExposureModel.intervalCensored(),
+                            org.incipit.core.estimate.delay.ExposureWindowModel.intervalCensored(),
                             DelayOptions.defaults()));
             row(rows, "outbreak simulator (infections)", size, simulate(size));
             System.err.println("done n = " + size);

@@ -657,7 +657,7 @@ final class Analysis {
         ExposureWindows w = windows.data();
         DelayOptions opts = DelayOptions.defaults();
         Fits.DelayFits corrected = Fits.fitAll(DelayFamilies.all(),
-                fam -> IncubationEstimator.fit(w, fam, org.incipit.core.estimate.delay.ExposureModel.intervalCensored(),
+                fam -> IncubationEstimator.fit(w, fam, org.incipit.core.estimate.delay.ExposureWindowModel.intervalCensored(),
                         opts));
         DelayPairs.Builder b = DelayPairs.builder();
         int dropped = 0;
@@ -685,7 +685,7 @@ final class Analysis {
         rows.add(row("sd, naive", n.sd(), truth(t + "/sd")));
         if (growth != null && growth.rate() != 0) {
             DelayFit g = IncubationEstimator.fit(w, c.family(),
-                    org.incipit.core.estimate.delay.ExposureModel.growing(growth.rate()), opts);
+                    org.incipit.core.estimate.delay.ExposureWindowModel.growing(growth.rate()), opts);
             if (g.converged()) {
                 o.set("growingExposure", JsonOutput.fit(Fits.summary(g)));
                 rows.add(row("mean, exposure weighted by the growth rate", g.mean(), truth(t + "/mean")));

@@ -5,7 +5,7 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
 import org.incipit.core.estimate.delay.DelayOptions;
-import org.incipit.core.estimate.delay.ExposureModel;
+import org.incipit.core.estimate.delay.ExposureWindowModel;
 import org.incipit.core.estimate.delay.IncubationEstimator;
 import org.incipit.core.observe.ExposureWindows;
 import org.incipit.distributions.DelayFamily;
@@ -55,14 +55,14 @@ public final class IncubationCommand extends AbstractCommand {
     public IncubationCommand() {
     }
 
-    static ExposureModel model(String window, Double growthRate) {
+    static ExposureWindowModel model(String window, Double growthRate) {
         String w = window.trim().toLowerCase(Locale.ROOT);
         if (!w.equals("growth") && growthRate != null) {
             throw new IllegalArgumentException("--growth-rate applies only to --window growth");
         }
         return switch (w) {
-            case "interval" -> ExposureModel.intervalCensored();
-            case "uniform" -> ExposureModel.uniform();
+            case "interval" -> ExposureWindowModel.intervalCensored();
+            case "uniform" -> ExposureWindowModel.uniform();
             case "growth" -> {
                 if (growthRate == null) {
                     throw new IllegalArgumentException("--window growth needs --growth-rate");
@@ -70,7 +70,7 @@ public final class IncubationCommand extends AbstractCommand {
                 if (!(Double.isFinite(growthRate) && growthRate != 0)) {
                     throw new IllegalArgumentException("--growth-rate must be finite and non-zero, was " + growthRate);
                 }
-                yield ExposureModel.growing(growthRate);
+                yield ExposureWindowModel.growing(growthRate);
             }
             default -> throw new IllegalArgumentException("--window must be interval, uniform or growth, was '"
                     + window + "'");
@@ -81,7 +81,7 @@ public final class IncubationCommand extends AbstractCommand {
     protected int run() {
         Cli.level(level);
         List<DelayFamily> fams = Fits.families("--family", family);
-        ExposureModel m = model(window, growthRate);
+        ExposureWindowModel m = model(window, growthRate);
         ReadResult<ExposureWindows> read = CsvInput.incubation(file, input.readOptions());
         reportSkipped(read);
         DelayOptions opts = DelayOptions.defaults().withLevel(level);

@@ -57,11 +57,11 @@ final class DelayModels {
         b.generator("incubation-windows", ExposureWindows.class, DelayModels::windows);
         b.estimator("incubation-interval-censored", ExposureWindows.class, (s, level) -> incubation(
                 "incubation-interval-censored", s, level,
-                org.incipit.core.estimate.delay.ExposureModel.intervalCensored()));
+                org.incipit.core.estimate.delay.ExposureWindowModel.intervalCensored()));
         b.estimator("incubation-uniform", ExposureWindows.class, (s, level) -> incubation("incubation-uniform", s,
-                level, org.incipit.core.estimate.delay.ExposureModel.uniform()));
+                level, org.incipit.core.estimate.delay.ExposureWindowModel.uniform()));
         b.estimator("incubation-growing", ExposureWindows.class, (s, level) -> incubation("incubation-growing", s,
-                level, org.incipit.core.estimate.delay.ExposureModel.growing(s.truth("r"))));
+                level, org.incipit.core.estimate.delay.ExposureWindowModel.growing(s.truth("r"))));
         b.generator("fatality-counts", DailyCounts.class, DelayModels::fatalityCounts);
         b.estimator("fatality-crude", DailyCounts.class, (s, level) -> StudyEstimator.of("fatality-crude",
                 List.of("fatality"), (rng, data) -> Map.of("fatality", FatalityEstimator.crude(data, level))));
@@ -248,7 +248,7 @@ final class DelayModels {
     }
 
     static StudyEstimator<ExposureWindows> incubation(String name, Scenario s, double level,
-                                                      org.incipit.core.estimate.delay.ExposureModel model) {
+                                                      org.incipit.core.estimate.delay.ExposureWindowModel model) {
         DelayFamily fam = family(s);
         DelayOptions o = DelayOptions.defaults().withLevel(level).withQuantiles(List.of());
         return StudyEstimator.of(name, List.of("mean", "sd"), (rng, w) -> {

@@ -6,7 +6,7 @@ import org.incipit.distributions.DelayFamily;
 
 /**
  * Incubation period from exposure windows [a_i, b_i] and onsets o_i under a chosen
- * {@link ExposureModel}. Windows far from the origin are integrated by 32-point
+ * {@link ExposureWindowModel}. Windows far from the origin are integrated by 32-point
  * Gauss&ndash;Legendre; windows reaching near incubation 0 by parts, through F, so that a
  * density singular at 0 stays accurate (see {@link DelayEstimator}).
  */
@@ -25,7 +25,7 @@ public final class IncubationEstimator {
      * @throws IllegalArgumentException if an exact exposure coincides with its onset
      * @throws EstimationException      if the likelihood is not finite at any start
      */
-    public static DelayFit fit(ExposureWindows windows, DelayFamily family, ExposureModel model,
+    public static DelayFit fit(ExposureWindows windows, DelayFamily family, ExposureWindowModel model,
                                DelayOptions options) {
         DelayLogLikelihood.Builder b = DelayLogLikelihood.builder(family);
         double[] guess = new double[windows.size()];
@@ -73,8 +73,8 @@ public final class IncubationEstimator {
      */
     public static IncubationVariants variants(ExposureWindows windows, DelayFamily family, double growthRate,
                                               DelayOptions options) {
-        return new IncubationVariants(fit(windows, family, ExposureModel.intervalCensored(), options),
-                fit(windows, family, ExposureModel.uniform(), options),
-                fit(windows, family, ExposureModel.growing(growthRate), options));
+        return new IncubationVariants(fit(windows, family, ExposureWindowModel.intervalCensored(), options),
+                fit(windows, family, ExposureWindowModel.uniform(), options),
+                fit(windows, family, ExposureWindowModel.growing(growthRate), options));
     }
 }

@@ -33,13 +33,13 @@ class DelayEstimatorApiTest {
         DelayPairs fractionalDay = DelayPairs.builder(10).addObserved("a", 2.5, 4, true).build();
         assertThrows(IllegalArgumentException.class,
                 () -> DelayEstimator.rightTruncated(fractionalDay, DelayFamilies.GAMMA, O));
-        assertThrows(IllegalArgumentException.class, () -> ExposureModel.growing(0));
+        assertThrows(IllegalArgumentException.class, () -> ExposureWindowModel.growing(0));
         assertThrows(IllegalArgumentException.class, () -> new DelayOptions(1.0, List.of(0.5), O.maximiser()));
         assertThrows(IllegalArgumentException.class,
                 () -> DelayEstimator.growthWeighted(new double[] {1, -2}, DelayFamilies.GAMMA, 0.1, O));
         ExposureWindows atOnset = ExposureWindows.builder().add("c", 3, 3, 3).build();
         assertThrows(IllegalArgumentException.class,
-                () -> IncubationEstimator.fit(atOnset, DelayFamilies.GAMMA, ExposureModel.uniform(), O));
+                () -> IncubationEstimator.fit(atOnset, DelayFamilies.GAMMA, ExposureWindowModel.uniform(), O));
     }
 
     @Test

@@ -198,14 +198,14 @@ class DelaySimulationTest {
             }
             ExposureWindows uw = u.build();
             ExposureWindows gw = g.build();
-            DelayFit uni = IncubationEstimator.fit(uw, DelayFamilies.LOGNORMAL, ExposureModel.uniform(), OPTIONS);
-            DelayFit cens = IncubationEstimator.fit(uw, DelayFamilies.LOGNORMAL, ExposureModel.intervalCensored(),
+            DelayFit uni = IncubationEstimator.fit(uw, DelayFamilies.LOGNORMAL, ExposureWindowModel.uniform(), OPTIONS);
+            DelayFit cens = IncubationEstimator.fit(uw, DelayFamilies.LOGNORMAL, ExposureWindowModel.intervalCensored(),
                     OPTIONS);
             // identity: the uniform-exposure likelihood is the interval-censored one minus sum log(b - a)
             assertEquals(cens.mean().estimate(), uni.mean().estimate(), 1e-6 * uni.mean().estimate(),
                     "uniform and interval-censored estimates coincide");
             uniformOnUniform[k] = uni.mean().estimate();
-            growingOnGrowing[k] = IncubationEstimator.fit(gw, DelayFamilies.LOGNORMAL, ExposureModel.growing(r),
+            growingOnGrowing[k] = IncubationEstimator.fit(gw, DelayFamilies.LOGNORMAL, ExposureWindowModel.growing(r),
                     OPTIONS).mean().estimate();
         }
         assertUnbiased(incubation.mean(), uniformOnUniform, "uniform exposure model on uniform exposures");

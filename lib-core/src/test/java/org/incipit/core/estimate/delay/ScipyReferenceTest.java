@@ -90,9 +90,9 @@ class ScipyReferenceTest {
             case "censored" -> DelayEstimator.censored(censored(), family, o);
             case "growth" -> DelayEstimator.growthWeighted(growth(), family, R, o);
             case "incubation" -> IncubationEstimator.fit(incubation(), family, switch (variant) {
-                case "interval" -> ExposureModel.intervalCensored();
-                case "uniform" -> ExposureModel.uniform();
-                default -> ExposureModel.growing(R);
+                case "interval" -> ExposureWindowModel.intervalCensored();
+                case "uniform" -> ExposureWindowModel.uniform();
+                default -> ExposureWindowModel.growing(R);
             }, o);
             default -> throw new IllegalStateException(dataset);
         };

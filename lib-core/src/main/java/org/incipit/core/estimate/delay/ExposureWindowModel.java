@@ -20,7 +20,7 @@ package org.incipit.core.estimate.delay;
  * @param kind       the model
  * @param growthRate r per day for {@link Kind#GROWING}, 0 otherwise
  */
-public record ExposureModel(Kind kind, double growthRate) {
+public record ExposureWindowModel(Kind kind, double growthRate) {
 
     /** The three models. */
     public enum Kind {
@@ -32,7 +32,7 @@ public record ExposureModel(Kind kind, double growthRate) {
         GROWING
     }
 
-    public ExposureModel {
+    public ExposureWindowModel {
         if (kind == null) {
             throw new IllegalArgumentException("kind must not be null");
         }
@@ -43,20 +43,20 @@ public record ExposureModel(Kind kind, double growthRate) {
     }
 
     /** @return the interval-censored model */
-    public static ExposureModel intervalCensored() {
-        return new ExposureModel(Kind.INTERVAL_CENSORED, 0);
+    public static ExposureWindowModel intervalCensored() {
+        return new ExposureWindowModel(Kind.INTERVAL_CENSORED, 0);
     }
 
     /** @return exposure uniform in the window */
-    public static ExposureModel uniform() {
-        return new ExposureModel(Kind.UNIFORM, 0);
+    public static ExposureWindowModel uniform() {
+        return new ExposureWindowModel(Kind.UNIFORM, 0);
     }
 
     /**
      * @param growthRate r per day, finite and non-zero
      * @return exposure density proportional to exp(r e) in the window
      */
-    public static ExposureModel growing(double growthRate) {
-        return new ExposureModel(Kind.GROWING, growthRate);
+    public static ExposureWindowModel growing(double growthRate) {
+        return new ExposureWindowModel(Kind.GROWING, growthRate);
     }
 }
