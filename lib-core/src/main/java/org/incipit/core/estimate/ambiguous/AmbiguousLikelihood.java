@@ -266,11 +266,10 @@ final class AmbiguousLikelihood implements LogLikelihood {
                                   double[] out) {
         final double[] u = data.logD;
         final double[] du = data.dur;
-        final int[] rk = data.rank;
         double mx = Double.NEGATIVE_INFINITY;
         for (int j = a; j < b; j++) {
             double y2 = square ? u[j] * u[j] : du[j];
-            double tj = Math.fma(b1, u[j], Math.fma(b2, y2, Math.fma(rk[j], logq, logp)));
+            double tj = Math.fma(b1, u[j], Math.fma(b2, y2, Math.fma(j - a, logq, logp)));
             mx = Double.isNaN(tj) ? tj : Math.max(mx, tj);
         }
         Arrays.fill(out, 0);
@@ -278,8 +277,8 @@ final class AmbiguousLikelihood implements LogLikelihood {
         for (int j = a; j < b; j++) {
             double y1 = u[j];
             double y2 = square ? y1 * y1 : du[j];
-            double y3 = rk[j];
-            double w = Math.exp(Math.fma(b1, y1, Math.fma(b2, y2, Math.fma(y3, logq, logp))) - mx);
+            double y3 = j - a;
+            double w = FastExp.exp(Math.fma(b1, y1, Math.fma(b2, y2, Math.fma(y3, logq, logp))) - mx);
             out[1] += w;
             out[2] = Math.fma(w, y1, out[2]);
             out[3] = Math.fma(w, y2, out[3]);
@@ -297,11 +296,14 @@ final class AmbiguousLikelihood implements LogLikelihood {
      * Gamma / lognormal with at most one category: moments of (u, f2, rank) under w.
      *
      * <p>The reference of each case's log-sum-exp is its first candidate's term (weight exactly
-     * 1, no exp), not the largest term: the sums are then at least 1 and, for any data where the
-     * terms of one case differ by less than log(1e20) ~ 46, at most m 1e20. A case whose sum
-     * exceeds {@link #LARGE} (or is NaN) is redone with the largest term as reference, so the
-     * product of the sums (see below) cannot overflow. One fused loop per case, straight-line
-     * arithmetic, no scratch arrays.
+     * 1, no exp; rank 0), not the largest term: the sums are then at least 1 and, for any data
+     * where the terms of one case differ by less than log(1e20) ~ 46, at most m 1e20. The
+     * exponent of candidate r of a case is t_r &minus; t_0 = beta1 (u_r &minus; u_0) + beta2
+     * (f_r &minus; f_0) + r log q (log p cancels). A case whose sum exceeds {@link #LARGE} (or
+     * is NaN) is redone with the largest term as reference, so the product of the sums (see
+     * below) cannot overflow. Cases come in blocks of equal candidate count m
+     * ({@link Prepared#blockStart}), so the per-case loop has the same length case after case;
+     * single-candidate cases need no exp at all. Straight-line arithmetic, no scratch arrays.
      */
     private Acc linearPass(double[] theta, int from, int to, boolean hs) {
         double[] c = new double[18];
@@ -317,99 +319,114 @@ final class AmbiguousLikelihood implements LogLikelihood {
         }
         final double[] u = data.logD;
         final double[] du = data.dur;
-        final int[] rk = data.rank;
         final int[] off = data.offset;
+        final int[] bs = data.blockStart;
         final double[] fb = new double[11];
         double sumRef = 0;
         double logProd = 0;
         double prod = 1;
         double g0 = 0, g1 = 0, g2 = 0;
         double h00 = 0, h01 = 0, h02 = 0, h11 = 0, h12 = 0, h22 = 0;
-        for (int i = from; i < to; i++) {
-            final int a = off[i];
-            final int b = off[i + 1];
-            final double x1 = u[a];
-            final double x2 = square ? x1 * x1 : du[a];
-            final double x3 = rk[a];
-            double ref = Math.fma(b1, x1, Math.fma(b2, x2, Math.fma(x3, logq, logp)));
-            double s0 = 1, s1 = x1, s2 = x2, s3 = x3;
-            if (!hs) {
-                for (int j = a + 1; j < b; j++) {
-                    final double y1 = u[j];
-                    final double y2 = square ? y1 * y1 : du[j];
-                    final double y3 = rk[j];
-                    final double w = Math.exp(Math.fma(b1, y1, Math.fma(b2, y2, Math.fma(y3, logq, logp))) - ref);
-                    s0 += w;
-                    s1 = Math.fma(w, y1, s1);
-                    s2 = Math.fma(w, y2, s2);
-                    s3 = Math.fma(w, y3, s3);
-                }
-                if (!(s0 <= LARGE)) {
-                    maxReferenceCase(a, b, b1, b2, logp, logq, square, fb);
-                    ref = fb[0];
-                    s0 = fb[1];
-                    s1 = fb[2];
-                    s2 = fb[3];
-                    s3 = fb[4];
-                }
-                final double inv = 1 / s0;
-                g0 = Math.fma(s1, inv, g0);
-                g1 = Math.fma(s2, inv, g1);
-                g2 = Math.fma(s3, inv, g2);
-            } else {
-                double s11 = x1 * x1, s12 = x1 * x2, s13 = x1 * x3, s22 = x2 * x2, s23 = x2 * x3, s33 = x3 * x3;
-                for (int j = a + 1; j < b; j++) {
-                    final double y1 = u[j];
-                    final double y2 = square ? y1 * y1 : du[j];
-                    final double y3 = rk[j];
-                    final double w = Math.exp(Math.fma(b1, y1, Math.fma(b2, y2, Math.fma(y3, logq, logp))) - ref);
-                    final double w1 = w * y1;
-                    final double w2 = w * y2;
-                    final double w3 = w * y3;
-                    s0 += w;
-                    s1 = Math.fma(w, y1, s1);
-                    s2 = Math.fma(w, y2, s2);
-                    s3 = Math.fma(w, y3, s3);
-                    s11 = Math.fma(w1, y1, s11);
-                    s12 = Math.fma(w1, y2, s12);
-                    s13 = Math.fma(w1, y3, s13);
-                    s22 = Math.fma(w2, y2, s22);
-                    s23 = Math.fma(w2, y3, s23);
-                    s33 = Math.fma(w3, y3, s33);
-                }
-                if (!(s0 <= LARGE)) {
-                    maxReferenceCase(a, b, b1, b2, logp, logq, square, fb);
-                    ref = fb[0];
-                    s0 = fb[1];
-                    s1 = fb[2];
-                    s2 = fb[3];
-                    s3 = fb[4];
-                    s11 = fb[5];
-                    s12 = fb[6];
-                    s13 = fb[7];
-                    s22 = fb[8];
-                    s23 = fb[9];
-                    s33 = fb[10];
-                }
-                final double inv = 1 / s0;
-                final double m1 = s1 * inv;
-                final double m2 = s2 * inv;
-                final double m3 = s3 * inv;
-                g0 += m1;
-                g1 += m2;
-                g2 += m3;
-                h00 += s11 * inv - m1 * m1;
-                h01 += s12 * inv - m1 * m2;
-                h02 += s13 * inv - m1 * m3;
-                h11 += s22 * inv - m2 * m2;
-                h12 += s23 * inv - m2 * m3;
-                h22 += s33 * inv - m3 * m3;
+        // m = 1: weight 1, the case adds its term and features, no covariance
+        final int lo1 = Math.max(from, bs[1]);
+        final int hi1 = Math.min(to, bs[2]);
+        if (hi1 > lo1) {
+            double su = 0;
+            double sf = 0;
+            for (int i = lo1; i < hi1; i++) {
+                final double x1 = u[off[i]];
+                su += x1;
+                sf += square ? x1 * x1 : du[off[i]];
             }
-            sumRef += ref;
-            prod *= s0;
-            if (prod > RESCALE) {
-                logProd += Math.log(prod);
-                prod = 1;
+            sumRef = Math.fma(b1, su, Math.fma(b2, sf, (hi1 - lo1) * logp));
+            g0 = su;
+            g1 = sf;
+        }
+        for (int m = 2; m <= data.maxM; m++) {
+            final int lo = Math.max(from, bs[m]);
+            final int hi = Math.min(to, bs[m + 1]);
+            for (int i = lo; i < hi; i++) {
+                final int a = off[i];
+                final double x1 = u[a];
+                final double x2 = square ? x1 * x1 : du[a];
+                double ref = Math.fma(b1, x1, Math.fma(b2, x2, logp));
+                double s0 = 1, s1 = x1, s2 = x2, s3 = 0;
+                if (!hs) {
+                    for (int r = 1; r < m; r++) {
+                        final double y1 = u[a + r];
+                        final double y2 = square ? y1 * y1 : du[a + r];
+                        final double w = FastExp.exp(Math.fma(b1, y1 - x1, Math.fma(b2, y2 - x2, r * logq)));
+                        s0 += w;
+                        s1 = Math.fma(w, y1, s1);
+                        s2 = Math.fma(w, y2, s2);
+                        s3 = Math.fma(w, r, s3);
+                    }
+                    if (!(s0 <= LARGE)) {
+                        maxReferenceCase(a, a + m, b1, b2, logp, logq, square, fb);
+                        ref = fb[0];
+                        s0 = fb[1];
+                        s1 = fb[2];
+                        s2 = fb[3];
+                        s3 = fb[4];
+                    }
+                    final double inv = 1 / s0;
+                    g0 = Math.fma(s1, inv, g0);
+                    g1 = Math.fma(s2, inv, g1);
+                    g2 = Math.fma(s3, inv, g2);
+                } else {
+                    double s11 = x1 * x1, s12 = x1 * x2, s22 = x2 * x2, s13 = 0, s23 = 0, s33 = 0;
+                    for (int r = 1; r < m; r++) {
+                        final double y1 = u[a + r];
+                        final double y2 = square ? y1 * y1 : du[a + r];
+                        final double w = FastExp.exp(Math.fma(b1, y1 - x1, Math.fma(b2, y2 - x2, r * logq)));
+                        final double w1 = w * y1;
+                        final double w2 = w * y2;
+                        final double w3 = w * r;
+                        s0 += w;
+                        s1 += w1;
+                        s2 += w2;
+                        s3 += w3;
+                        s11 = Math.fma(w1, y1, s11);
+                        s12 = Math.fma(w1, y2, s12);
+                        s13 = Math.fma(w1, r, s13);
+                        s22 = Math.fma(w2, y2, s22);
+                        s23 = Math.fma(w2, r, s23);
+                        s33 = Math.fma(w3, r, s33);
+                    }
+                    if (!(s0 <= LARGE)) {
+                        maxReferenceCase(a, a + m, b1, b2, logp, logq, square, fb);
+                        ref = fb[0];
+                        s0 = fb[1];
+                        s1 = fb[2];
+                        s2 = fb[3];
+                        s3 = fb[4];
+                        s11 = fb[5];
+                        s12 = fb[6];
+                        s13 = fb[7];
+                        s22 = fb[8];
+                        s23 = fb[9];
+                        s33 = fb[10];
+                    }
+                    final double inv = 1 / s0;
+                    final double m1 = s1 * inv;
+                    final double m2 = s2 * inv;
+                    final double m3 = s3 * inv;
+                    g0 += m1;
+                    g1 += m2;
+                    g2 += m3;
+                    h00 += s11 * inv - m1 * m1;
+                    h01 += s12 * inv - m1 * m2;
+                    h02 += s13 * inv - m1 * m3;
+                    h11 += s22 * inv - m2 * m2;
+                    h12 += s23 * inv - m2 * m3;
+                    h22 += s33 * inv - m3 * m3;
+                }
+                sumRef += ref;
+                prod *= s0;
+                if (prod > RESCALE) {
+                    logProd += Math.log(prod);
+                    prod = 1;
+                }
             }
         }
         Acc acc = new Acc();
@@ -498,7 +515,7 @@ final class AmbiguousLikelihood implements LogLikelihood {
                     f[base + 1] = f2;
                 } else {
                     double kv = shape * (uj - logScale);
-                    double z = Math.exp(kv);
+                    double z = FastExp.exp(kv);
                     lh = theta[0] + kv - uj - z;
                     f[base] = 1 + kv * (1 - z);
                     f[base + 1] = shape * (z - 1);
@@ -536,7 +553,7 @@ final class AmbiguousLikelihood implements LogLikelihood {
                 Arrays.fill(st, 0);
             }
             for (int r = 0; r < b - a; r++) {
-                double w = Math.exp(t[r] - mx);
+                double w = FastExp.exp(t[r] - mx);
                 if (!(w > 0)) {
                     continue; // a term with h = 0 (or underflow) adds nothing; avoids 0 * inf
                 }

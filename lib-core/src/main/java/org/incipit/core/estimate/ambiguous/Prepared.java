@@ -4,9 +4,10 @@ import java.util.Arrays;
 
 /**
  * Ambiguous-start data prepared once for the likelihood kernels: flat primitive arrays, per
- * candidate the log-duration, the duration, the rank j &minus; 1 within its case and the
- * category; per case an offset. Immutable (arrays never leave the package). 24 bytes per
- * candidate (two doubles and two ints).
+ * candidate the log-duration, the duration and the category (the rank within its case is the
+ * position from the case's offset: starts are sorted and unusable ones come last); per case an
+ * offset. Immutable (arrays never leave the package). 20 bytes per candidate (two doubles and
+ * an int) and about 16 per case.
  *
  * <p><b>Ties and starts at or after the end.</b> A candidate with d = t &minus; e &le; 0 cannot
  * have started the interval (H is continuous on (0, &infin;), so X = 0 has probability 0): its
@@ -15,6 +16,12 @@ import java.util.Arrays;
  * the complete-history normaliser). Since starts are sorted, such candidates are the last of
  * their case. A case none of whose candidates precedes the end has likelihood 0 for every
  * parameter and is rejected.
+ *
+ * <p><b>Case order.</b> Cases are stored sorted (stably) by their number of usable candidates
+ * m, so that the kernels run through blocks of equal m: the length of the per-case loop is
+ * then the same case after case (predictable branches, see {@link #blockStart}). Everything
+ * computed from a Prepared is a sum over cases, so the order only changes rounding; case ids
+ * travel with their cases, so messages name the right case.
  */
 final class Prepared {
 
@@ -28,8 +35,6 @@ final class Prepared {
     final double[] logD;
     /** d per usable candidate. */
     final double[] dur;
-    /** j &minus; 1 per usable candidate. */
-    final int[] rank;
     /** Category code in [0, K) per usable candidate; all 0 if K &le; 1. */
     final int[] cat;
     /** Recorded exposures per case and category (including those with d &le; 0), flat n &times; max(K,1). */
@@ -40,26 +45,69 @@ final class Prepared {
     final int[] total;
     /** Largest number of usable candidates in one case. */
     final int maxM;
-    /** Case ids (for messages), may be null. */
+    /** Case ids (for messages) in the caller's order, may be null. */
     final String[] ids;
+    /** Caller's index of each stored case, or null (stored order is the caller's). */
+    final int[] original;
+    /** Cases with m usable candidates are [blockStart[m], blockStart[m + 1]), m = 1..maxM. */
+    final int[] blockStart;
 
-    private Prepared(int n, int categories, int[] offset, double[] logD, double[] dur, int[] rank, int[] cat,
-                     int[] recorded, int[] total, String[] ids) {
+    private Prepared(int n, int categories, int[] offset, double[] logD, double[] dur, int[] cat,
+                     int[] recorded, int[] total, String[] ids, int[] original) {
         this.n = n;
         this.categories = categories;
         this.offset = offset;
         this.logD = logD;
         this.dur = dur;
-        this.rank = rank;
         this.cat = cat;
         this.recorded = recorded;
         this.total = total;
         this.ids = ids;
+        this.original = original;
         int mm = 0;
         for (int i = 0; i < n; i++) {
-            mm = Math.max(mm, offset[i + 1] - offset[i]);
+            int m = offset[i + 1] - offset[i];
+            if (m < mm) {
+                throw new IllegalStateException("cases must be sorted by candidate count");
+            }
+            mm = m;
         }
         this.maxM = mm;
+        int[] bs = new int[mm + 2];
+        int i = 0;
+        for (int m = 1; m <= mm + 1; m++) {
+            while (i < n && offset[i + 1] - offset[i] < m) {
+                i++;
+            }
+            bs[m] = i;
+        }
+        this.blockStart = bs;
+    }
+
+    /**
+     * A stable counting sort of case indices by their number of usable candidates.
+     *
+     * @param cases  case indices (into the arrays below), possibly repeated
+     * @param usable usable candidates per case index
+     * @return the indices reordered
+     */
+    private static int[] sortByCount(int[] cases, int[] usable) {
+        int max = 0;
+        for (int c : cases) {
+            max = Math.max(max, usable[c]);
+        }
+        int[] start = new int[max + 2];
+        for (int c : cases) {
+            start[usable[c] + 1]++;
+        }
+        for (int m = 1; m <= max + 1; m++) {
+            start[m] += start[m - 1];
+        }
+        int[] out = new int[cases.length];
+        for (int c : cases) {
+            out[start[usable[c]]++] = c;
+        }
+        return out;
     }
 
     /**
@@ -91,7 +139,7 @@ final class Prepared {
         if (totals != null && totals.length != n) {
             throw new IllegalArgumentException("totals must have one entry per case (" + n + "), had " + totals.length);
         }
-        int[] off = new int[n + 1];
+        int[] use = new int[n];
         int usable = 0;
         for (int i = 0; i < n; i++) {
             int a = caseOffsets[i];
@@ -124,36 +172,45 @@ final class Prepared {
                 throw new IllegalArgumentException("total exposures of case " + name(ids, i) + " must be >= its "
                         + (b - a) + " recorded starts, was " + totals[i]);
             }
-            off[i + 1] = off[i] + u;
+            use[i] = u;
             usable += u;
         }
+        int[] identity = new int[n];
+        for (int i = 0; i < n; i++) {
+            identity[i] = i;
+        }
+        int[] order = sortByCount(identity, use);
+        int[] off = new int[n + 1];
         double[] logD = new double[usable];
         double[] dur = new double[usable];
-        int[] rank = new int[usable];
         int[] cat = new int[usable];
         int[] recorded = new int[n * k];
-        for (int i = 0; i < n; i++) {
+        int[] tot = totals == null ? null : new int[n];
+        for (int r = 0; r < n; r++) {
+            int i = order[r];
             int a = caseOffsets[i];
-            int w = off[i];
+            int w = off[r];
+            off[r + 1] = w + use[i];
+            if (tot != null) {
+                tot[r] = totals[i];
+            }
             for (int j = a; j < caseOffsets[i + 1]; j++) {
                 int c = categories == null ? 0 : categories[j];
                 if (c < 0 || c >= k) {
                     throw new IllegalArgumentException("category of a start of case " + name(ids, i)
                             + " must be in [0, " + k + "), was " + c);
                 }
-                recorded[i * k + c]++;
+                recorded[r * k + c]++;
                 double d = ends[i] - starts[j];
                 if (d > 0) {
                     dur[w] = d;
                     logD[w] = Math.log(d);
-                    rank[w] = j - a;
                     cat[w] = c;
                     w++;
                 }
             }
         }
-        return new Prepared(n, k, off, logD, dur, rank, cat, recorded, totals == null ? null : totals.clone(),
-                ids == null ? null : ids.clone());
+        return new Prepared(n, k, off, logD, dur, cat, recorded, tot, ids == null ? null : ids.clone(), order);
     }
 
     /** Adapter from the observation type. */
@@ -186,11 +243,16 @@ final class Prepared {
             off[i + 1] = i + 1;
             logD[i] = Math.log(durations[i]);
         }
-        return new Prepared(n, 0, off, logD, durations.clone(), new int[n], new int[n], new int[n], null, null);
+        return new Prepared(n, 0, off, logD, durations.clone(), new int[n], new int[n], null, null, null);
     }
 
-    /** The cases idx[0], idx[1], ... (with repetition), e.g. a bootstrap resample. */
-    Prepared subset(int[] idx) {
+    /** The cases cases[0], cases[1], ... (with repetition, stored in candidate-count order), e.g. a bootstrap resample. */
+    Prepared subset(int[] cases) {
+        int[] usable = new int[n];
+        for (int i = 0; i < n; i++) {
+            usable[i] = offset[i + 1] - offset[i];
+        }
+        int[] idx = sortByCount(cases, usable);
         int kk = Math.max(categories, 1);
         int[] off = new int[idx.length + 1];
         for (int r = 0; r < idx.length; r++) {
@@ -200,7 +262,6 @@ final class Prepared {
         int m = off[idx.length];
         double[] l = new double[m];
         double[] d = new double[m];
-        int[] rk = new int[m];
         int[] c = new int[m];
         int[] rec = new int[idx.length * kk];
         int[] tot = total == null ? null : new int[idx.length];
@@ -209,14 +270,13 @@ final class Prepared {
             int len = offset[i + 1] - offset[i];
             System.arraycopy(logD, offset[i], l, off[r], len);
             System.arraycopy(dur, offset[i], d, off[r], len);
-            System.arraycopy(rank, offset[i], rk, off[r], len);
             System.arraycopy(cat, offset[i], c, off[r], len);
             System.arraycopy(recorded, i * kk, rec, r * kk, kk);
             if (tot != null) {
                 tot[r] = total[i];
             }
         }
-        return new Prepared(idx.length, categories, off, l, d, rk, c, rec, tot, null);
+        return new Prepared(idx.length, categories, off, l, d, c, rec, tot, null, null);
     }
 
     /** Number of usable candidates. */
@@ -252,8 +312,9 @@ final class Prepared {
         return out;
     }
 
+    /** Name of stored case i for messages (its id, or its position in the caller's data). */
     String caseName(int i) {
-        return name(ids, i);
+        return name(ids, original == null ? i : original[i]);
     }
 
     private static String name(String[] ids, int i) {

@@ -2,6 +2,7 @@ package org.incipit.core.estimate.ambiguous;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.ArrayList;
 import java.util.List;
@@ -227,5 +228,110 @@ class AmbiguousLikelihoodTest {
         assertEquals(2, tie.recordedCount(0));
         assertThrows(IllegalArgumentException.class, () -> new AmbiguousLikelihood(data(2), Family.GAMMA,
                 ExposureHistory.knownTotal()));
+    }
+
+    /**
+     * Cases are stored in blocks of equal candidate count: the likelihood is a sum over cases,
+     * so any input order gives the same value, gradient and Hessian (to rounding), the blocks
+     * are contiguous, and messages still name the right case (common practice: a sum is
+     * invariant under permutation of its terms).
+     */
+    @Test
+    void caseOrderDoesNotMatterAndMessagesNameTheCase() {
+        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(SEED + 7);
+        int n = 300;
+        double[] ends = new double[n];
+        double[][] starts = new double[n][];
+        for (int i = 0; i < n; i++) {
+            int m = 1 + rng.nextInt(7);
+            ends[i] = 10 + 5 * rng.nextDouble();
+            starts[i] = new double[m];
+            for (int j = 0; j < m; j++) {
+                starts[i][j] = ends[i] - 0.2 - 9 * rng.nextDouble();
+            }
+            java.util.Arrays.sort(starts[i]);
+        }
+        int[] reversed = new int[n];
+        for (int i = 0; i < n; i++) {
+            reversed[i] = n - 1 - i;
+        }
+        int[] identity = new int[n];
+        for (int i = 0; i < n; i++) {
+            identity[i] = i;
+        }
+        Prepared a = build(ends, starts, identity);
+        Prepared b = build(ends, starts, reversed);
+        for (int i = 1; i < a.n; i++) {
+            assertTrue(a.offset[i + 1] - a.offset[i] >= a.offset[i] - a.offset[i - 1], "sorted by count");
+        }
+        for (int m = 1; m <= a.maxM; m++) {
+            for (int i = a.blockStart[m]; i < a.blockStart[m + 1]; i++) {
+                assertEquals(m, a.offset[i + 1] - a.offset[i]);
+            }
+        }
+        assertEquals(a.n, a.blockStart[a.maxM + 1]);
+        double[] theta = {Math.log(2.5), Math.log(0.5), -0.4};
+        for (Family f : Family.values()) {
+            for (boolean general : new boolean[] {false, true}) {
+                AmbiguousLikelihood la = new AmbiguousLikelihood(a, f, ExposureHistory.open(), general, true);
+                AmbiguousLikelihood lb = new AmbiguousLikelihood(b, f, ExposureHistory.open(), general, true);
+                double[] ga = new double[3];
+                double[] gb = new double[3];
+                double[] ha = new double[9];
+                double[] hb = new double[9];
+                double va = la.valueAndGradient(theta, ga);
+                assertEquals(va, lb.valueAndGradient(theta, gb), 1e-12 * Math.abs(va));
+                la.hessian(theta, ha);
+                lb.hessian(theta, hb);
+                for (int i = 0; i < 3; i++) {
+                    assertEquals(ga[i], gb[i], 1e-11 * Math.max(1, Math.abs(ga[i])));
+                }
+                for (int i = 0; i < 9; i++) {
+                    assertEquals(ha[i], hb[i], 1e-11 * Math.max(1, Math.abs(ha[i])));
+                }
+            }
+        }
+        // a known-total history with one case lacking its total names that case, whatever its position
+        int[] totals = new int[n];
+        for (int i = 0; i < n; i++) {
+            totals[i] = starts[i].length + 1;
+        }
+        totals[17] = Prepared.UNKNOWN;
+        int[] off = new int[n + 1];
+        List<Double> flat = new ArrayList<>();
+        String[] ids = new String[n];
+        for (int i = 0; i < n; i++) {
+            off[i + 1] = off[i] + starts[i].length;
+            for (double x : starts[i]) {
+                flat.add(x);
+            }
+            ids[i] = "case-" + i;
+        }
+        Prepared t = Prepared.of(ends, off, flat.stream().mapToDouble(Double::doubleValue).toArray(), null, 1, totals,
+                ids);
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+                () -> new AmbiguousLikelihood(t, Family.GAMMA, ExposureHistory.knownTotal()));
+        assertTrue(e.getMessage().contains("'case-17'"), e.getMessage());
+        // a bootstrap-style subset is stored in count order too
+        Prepared sub = a.subset(new int[] {n - 1, 0, 5, 5, 120});
+        for (int i = 1; i < sub.n; i++) {
+            assertTrue(sub.offset[i + 1] - sub.offset[i] >= sub.offset[i] - sub.offset[i - 1]);
+        }
+    }
+
+    private static Prepared build(double[] ends, double[][] starts, int[] order) {
+        int n = ends.length;
+        double[] e = new double[n];
+        int[] off = new int[n + 1];
+        List<Double> flat = new ArrayList<>();
+        for (int r = 0; r < n; r++) {
+            int i = order[r];
+            e[r] = ends[i];
+            off[r + 1] = off[r] + starts[i].length;
+            for (double x : starts[i]) {
+                flat.add(x);
+            }
+        }
+        return Prepared.of(e, off, flat.stream().mapToDouble(Double::doubleValue).toArray(), null, 1, null, null);
     }
 }
