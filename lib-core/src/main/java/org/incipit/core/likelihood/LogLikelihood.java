@@ -49,4 +49,25 @@ public interface LogLikelihood {
     default void hessian(double[] theta, double[] outRowMajor) {
         throw new UnsupportedOperationException("no analytic Hessian; hasHessian() is false");
     }
+
+    /**
+     * Value, gradient and analytic Hessian at one point, for Newton's method, which needs all
+     * three at every accepted point. The default calls {@link #valueAndGradient} and then, if
+     * the value is finite, {@link #hessian}; kernels that obtain the three in one pass over the
+     * data override it.
+     *
+     * @param theta       parameter vector; not modified
+     * @param gradientOut receives the gradient (as {@link #valueAndGradient})
+     * @param hessianOut  receives the Hessian, row-major, when the value is finite; otherwise
+     *                    its content is unspecified
+     * @return the log-likelihood, as {@link #value(double[])}
+     * @throws UnsupportedOperationException if {@link #hasHessian()} is false
+     */
+    default double valueGradientHessian(double[] theta, double[] gradientOut, double[] hessianOut) {
+        double v = valueAndGradient(theta, gradientOut);
+        if (Double.isFinite(v)) {
+            hessian(theta, hessianOut);
+        }
+        return v;
+    }
 }

@@ -19,7 +19,9 @@ import org.slf4j.LoggerFactory;
  * Alg. 6.1 and eq. 6.20). {@link Method#NEWTON}: damped Newton on the analytic Hessian if the
  * likelihood has one, else on central differences of the analytic gradient; the Hessian of
  * &minus;l is made positive definite by replacing each eigenvalue &lambda; by
- * max(|&lambda;|, 1e-14 max|&lambda;|) (Nocedal &amp; Wright 2006, sec. 3.4).
+ * max(|&lambda;|, 1e-14 max|&lambda;|) (Nocedal &amp; Wright 2006, sec. 3.4). With an analytic
+ * Hessian every trial point is evaluated by {@link LogLikelihood#valueGradientHessian}, so a
+ * kernel that gets the three in one pass over the data costs one pass per trial.
  * Both use a backtracking line search: a step is accepted on Armijo sufficient increase
  * (c1 = 1e-4) or, where value differences are at rounding level, on the approximate-Wolfe test
  * of Hager &amp; Zhang (2005, SIAM J. Optim. 16:170); otherwise the step is halved. A non-finite
@@ -255,7 +257,7 @@ public final class Maximiser {
                 double dn = Math.sqrt(dot(d, d));
                 alpha = Math.min(1, 1 / dn);
             }
-            double fn = lineSearch(ll, x, d, f, slope, alpha, xn, gn, run);
+            double fn = lineSearch(ll, x, d, f, slope, alpha, xn, gn, null, run);
             if (Double.isNaN(fn)) {
                 boolean ok = rg <= 1000 * gradientTolerance;
                 return new Optimum(x, f, g, it, run.evaluations, ok,
@@ -310,7 +312,12 @@ public final class Maximiser {
         int k = x.length;
         Run run = new Run();
         double[] g = new double[k];
-        double f = eval(ll, x, g, run);
+        // with an analytic Hessian every evaluation returns it too (one call), so that the
+        // Hessian at an accepted point is already there
+        boolean analytic = ll.hasHessian();
+        double[] h = analytic ? new double[k * k] : null;
+        double[] hn = analytic ? new double[k * k] : null;
+        double f = analytic ? evalWithHessian(ll, x, g, h, run) : eval(ll, x, g, run);
         if (!Double.isFinite(f)) {
             throw new IllegalArgumentException("log-likelihood at the start must be finite, was " + f);
         }
@@ -326,8 +333,10 @@ public final class Maximiser {
             if (diverging(x, f)) {
                 return new Optimum(x, f, g, it, run.evaluations, false, "no maximum: value still increasing at |theta| > 1e8 or value > 1e300 (unbounded likelihood?)");
             }
-            double[] h = Derivatives.hessian(ll, x);
-            run.evaluations += ll.hasHessian() ? 1 : 2 * k;
+            if (!analytic) {
+                h = Derivatives.hessian(ll, x);
+                run.evaluations += 2 * k;
+            }
             boolean newtonStep = h != null && modifiedNewtonDirection(h, g, d, k);
             if (!newtonStep) {
                 System.arraycopy(g, 0, d, 0, k);
@@ -338,7 +347,7 @@ public final class Maximiser {
             }
             double slope = dot(g, d);
             double alpha = 1;
-            double fn = lineSearch(ll, x, d, f, slope, alpha, xn, gn, run);
+            double fn = lineSearch(ll, x, d, f, slope, alpha, xn, gn, hn, run);
             if (Double.isNaN(fn)) {
                 boolean ok = rg <= 1000 * gradientTolerance;
                 return new Optimum(x, f, g, it, run.evaluations, ok,
@@ -352,6 +361,9 @@ public final class Maximiser {
             double valueRel = Math.abs(fn - f) / Math.max(1, Math.abs(fn));
             System.arraycopy(xn, 0, x, 0, k);
             System.arraycopy(gn, 0, g, 0, k);
+            if (analytic) {
+                System.arraycopy(hn, 0, h, 0, k * k);
+            }
             f = fn;
             if (valueRel <= Math.ulp(1.0) && stepRel <= Math.ulp(1.0)) {
                 double rgn = relativeGradient(x, g, f);
@@ -411,18 +423,18 @@ public final class Maximiser {
      * Backtracking line search along d from x (value f, directional slope {@code slope > 0}),
      * starting at step alpha: halves the step after a finite but unacceptable value, divides it
      * by 10 after a non-finite one. On success xn and gn hold the accepted point and its
-     * gradient.
+     * gradient, and hn (if not null) its Hessian.
      *
      * @return the accepted value, or NaN if no step in {@code MAX_BACKTRACK} tries was acceptable
      */
     private static double lineSearch(LogLikelihood ll, double[] x, double[] d, double f, double slope,
-                                     double alpha, double[] xn, double[] gn, Run run) {
+                                     double alpha, double[] xn, double[] gn, double[] hn, Run run) {
         int k = x.length;
         for (int b = 0; b < MAX_BACKTRACK; b++) {
             for (int i = 0; i < k; i++) {
                 xn[i] = x[i] + alpha * d[i];
             }
-            double fn = eval(ll, xn, gn, run);
+            double fn = hn != null ? evalWithHessian(ll, xn, gn, hn, run) : eval(ll, xn, gn, run);
             if (acceptable(f, fn, alpha, slope, dot(gn, d))) {
                 return fn;
             }
@@ -443,7 +455,16 @@ public final class Maximiser {
 
     private static double eval(LogLikelihood ll, double[] x, double[] g, Run run) {
         run.evaluations++;
-        double v = ll.valueAndGradient(x, g);
+        return checked(ll.valueAndGradient(x, g), g);
+    }
+
+    /** As {@link #eval}, with the Hessian (a non-finite one later gives a gradient step, as without it). */
+    private static double evalWithHessian(LogLikelihood ll, double[] x, double[] g, double[] h, Run run) {
+        run.evaluations++;
+        return checked(ll.valueGradientHessian(x, g, h), g);
+    }
+
+    private static double checked(double v, double[] g) {
         if (Double.isNaN(v) || v == Double.POSITIVE_INFINITY) {
             return Double.NEGATIVE_INFINITY;
         }

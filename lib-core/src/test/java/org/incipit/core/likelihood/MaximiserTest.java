@@ -179,4 +179,68 @@ class MaximiserTest {
         LogLikelihood nowhere = TestLikelihoods.exponential(new double[] {1});
         assertThrows(IllegalArgumentException.class, () -> Maximiser.bfgs().maximise(nowhere, new double[] {-1}));
     }
+
+    /**
+     * Rosenbrock with its analytic Hessian (Rosenbrock 1960; the second derivatives by hand):
+     * Newton takes value, gradient and Hessian in one call per trial point when the likelihood
+     * offers it, and reaches the same maximum as when the Hessian is asked for separately.
+     */
+    @Test
+    void newtonUsesTheCombinedCallOncePerTrialPoint() {
+        int[] calls = new int[3]; // valueAndGradient, hessian, valueGradientHessian
+        class Counted implements LogLikelihood {
+            final boolean combined;
+
+            Counted(boolean combined) {
+                this.combined = combined;
+            }
+
+            public int dimension() {
+                return 2;
+            }
+
+            public double value(double[] t) {
+                return ROSENBROCK.value(t);
+            }
+
+            public double valueAndGradient(double[] t, double[] g) {
+                calls[0]++;
+                return ROSENBROCK.valueAndGradient(t, g);
+            }
+
+            public boolean hasHessian() {
+                return true;
+            }
+
+            public void hessian(double[] t, double[] h) {
+                calls[1]++;
+                h[0] = -(1200 * t[0] * t[0] - 400 * t[1] + 2);
+                h[1] = 400 * t[0];
+                h[2] = 400 * t[0];
+                h[3] = -200;
+            }
+
+            public double valueGradientHessian(double[] t, double[] g, double[] h) {
+                if (!combined) {
+                    return LogLikelihood.super.valueGradientHessian(t, g, h);
+                }
+                calls[2]++;
+                hessian(t, h);
+                calls[1]--;
+                return ROSENBROCK.valueAndGradient(t, g);
+            }
+        }
+        Optimum viaDefault = Maximiser.newton().maximise(new Counted(false), new double[] {-1.2, 1});
+        assertEquals(calls[0], calls[1], "default: one gradient and one Hessian call per point");
+        java.util.Arrays.fill(calls, 0);
+        Optimum combined = Maximiser.newton().maximise(new Counted(true), new double[] {-1.2, 1});
+        assertEquals(0, calls[0]);
+        assertEquals(0, calls[1]);
+        assertEquals(combined.evaluations(), calls[2]);
+        assertTrue(combined.converged());
+        assertEquals(1, combined.argmax()[0], 1e-8);
+        assertEquals(1, combined.argmax()[1], 1e-8);
+        assertEquals(viaDefault.iterations(), combined.iterations());
+        assertEquals(viaDefault.value(), combined.value(), 0);
+    }
 }

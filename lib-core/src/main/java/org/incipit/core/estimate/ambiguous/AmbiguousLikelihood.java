@@ -53,6 +53,9 @@ final class AmbiguousLikelihood implements LogLikelihood {
     private final double poissonMean; // > 0 for poisson total
     private final int split;       // case index of the split, or n
     private final boolean general; // force the general per-term pass (tests)
+    /** {theta, Hessian} of the latest valueGradientHessian call (immutable entries; thread-safe). */
+    private final java.util.concurrent.atomic.AtomicReference<double[][]> lastHessian =
+            new java.util.concurrent.atomic.AtomicReference<>();
 
     AmbiguousLikelihood(Prepared data, Family family, ExposureHistory history) {
         this(data, family, history, false, false);
@@ -152,55 +155,27 @@ final class AmbiguousLikelihood implements LogLikelihood {
         return true;
     }
 
+    /**
+     * The Hessian; if theta is the point of the latest {@link #valueGradientHessian} call, the
+     * Hessian computed there (so that the observed information after Newton's method costs no
+     * pass).
+     */
     @Override
     public void hessian(double[] theta, double[] outRowMajor) {
-        evaluate(theta, new double[q], outRowMajor);
+        double[][] e = lastHessian.get();
+        if (e != null && Arrays.equals(e[0], theta)) {
+            System.arraycopy(e[1], 0, outRowMajor, 0, q * q);
+        } else {
+            evaluate(theta, new double[q], outRowMajor);
+        }
     }
 
-    /**
-     * A view for Newton's method: every value-and-gradient evaluation also computes the Hessian
-     * in the same pass and keeps it, so that the maximiser's Hessian request at an accepted
-     * point costs nothing. Thread-safe (the kept entry is immutable and checked against theta).
-     */
-    LogLikelihood withHessianReuse() {
-        AmbiguousLikelihood kernel = this;
-        return new LogLikelihood() {
-            private final java.util.concurrent.atomic.AtomicReference<double[][]> last =
-                    new java.util.concurrent.atomic.AtomicReference<>();
-
-            @Override
-            public int dimension() {
-                return q;
-            }
-
-            @Override
-            public double value(double[] theta) {
-                return kernel.value(theta);
-            }
-
-            @Override
-            public double valueAndGradient(double[] theta, double[] gradientOut) {
-                double[] h = new double[q * q];
-                double v = kernel.evaluate(theta, gradientOut, h);
-                last.set(new double[][] {theta.clone(), h});
-                return v;
-            }
-
-            @Override
-            public boolean hasHessian() {
-                return true;
-            }
-
-            @Override
-            public void hessian(double[] theta, double[] out) {
-                double[][] e = last.get();
-                if (e != null && Arrays.equals(e[0], theta)) {
-                    System.arraycopy(e[1], 0, out, 0, q * q);
-                } else {
-                    kernel.hessian(theta, out);
-                }
-            }
-        };
+    /** Value, gradient and Hessian in one pass; the Hessian is kept for {@link #hessian}. */
+    @Override
+    public double valueGradientHessian(double[] theta, double[] gradientOut, double[] hessianOut) {
+        double v = evaluate(theta, gradientOut, hessianOut);
+        lastHessian.set(new double[][] {theta.clone(), hessianOut.clone()});
+        return v;
     }
 
     /** Value, and gradient / Hessian if the arrays are non-null. */

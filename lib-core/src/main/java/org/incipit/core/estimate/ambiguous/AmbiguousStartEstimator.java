@@ -304,7 +304,7 @@ public final class AmbiguousStartEstimator {
         if (data.categories < 1) {
             throw new IllegalArgumentException("data must have >= 1 transmission category");
         }
-        LogLikelihood ll = new AmbiguousLikelihood(data, family, history).withHessianReuse();
+        LogLikelihood ll = new AmbiguousLikelihood(data, family, history);
         int k = data.categories;
         List<String> names = new ArrayList<>(List.of(family.name1, family.name2));
         List<ParameterTransform> transforms = new ArrayList<>(family.transforms());
@@ -346,7 +346,7 @@ public final class AmbiguousStartEstimator {
                 idx[r] = r * WARM_STRIDE + WARM_STRIDE / 2;
             }
             Prepared sub = data.subset(idx);
-            Optimum so = optimum(sub, family, history, new AmbiguousLikelihood(sub, family, history).withHessianReuse());
+            Optimum so = optimum(sub, family, history, new AmbiguousLikelihood(sub, family, history));
             if (so.converged()) {
                 Optimum o = WARM_NEWTON.maximise(ll, so.argmax());
                 if (o.converged()) {

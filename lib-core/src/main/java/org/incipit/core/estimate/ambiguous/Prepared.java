@@ -39,6 +39,8 @@ final class Prepared {
     final int[] cat;
     /** Recorded exposures per case and category (including those with d &le; 0), flat n &times; max(K,1). */
     final int[] recorded;
+    /** Usable candidates from which the arrays are filled by two threads (each element as by one). */
+    static final int PARALLEL_FILL = 20_000;
     /** Marker of an unknown total in {@link #total}. */
     static final int UNKNOWN = -1;
     /** Total exposure count M per case ({@link #UNKNOWN} if not known), or null. */
@@ -157,6 +159,10 @@ final class Prepared {
                     throw new IllegalArgumentException("starts of case " + name(ids, i)
                             + " must be sorted ascending, found " + starts[j - 1] + " before " + starts[j]);
                 }
+                if (categories != null && (categories[j] < 0 || categories[j] >= k)) {
+                    throw new IllegalArgumentException("category of a start of case " + name(ids, i)
+                            + " must be in [0, " + k + "), was " + categories[j]);
+                }
                 if (ends[i] - starts[j] > 0) {
                     u++;
                 }
@@ -181,34 +187,48 @@ final class Prepared {
         }
         int[] order = sortByCount(identity, use);
         int[] off = new int[n + 1];
+        for (int r = 0; r < n; r++) {
+            off[r + 1] = off[r] + use[order[r]];
+        }
         double[] logD = new double[usable];
         double[] dur = new double[usable];
         int[] cat = new int[usable];
         int[] recorded = new int[n * k];
         int[] tot = totals == null ? null : new int[n];
-        for (int r = 0; r < n; r++) {
-            int i = order[r];
-            int a = caseOffsets[i];
-            int w = off[r];
-            off[r + 1] = w + use[i];
-            if (tot != null) {
-                tot[r] = totals[i];
-            }
-            for (int j = a; j < caseOffsets[i + 1]; j++) {
-                int c = categories == null ? 0 : categories[j];
-                if (c < 0 || c >= k) {
-                    throw new IllegalArgumentException("category of a start of case " + name(ids, i)
-                            + " must be in [0, " + k + "), was " + c);
+        Runnable[] fill = new Runnable[2];
+        int half = usable >= PARALLEL_FILL ? n / 2 : n;
+        for (int part = 0; part < 2; part++) {
+            int lo = part == 0 ? 0 : half;
+            int hi = part == 0 ? half : n;
+            fill[part] = () -> {
+                for (int r = lo; r < hi; r++) {
+                    int i = order[r];
+                    int a = caseOffsets[i];
+                    int w = off[r];
+                    if (tot != null) {
+                        tot[r] = totals[i];
+                    }
+                    for (int j = a; j < caseOffsets[i + 1]; j++) {
+                        int c = categories == null ? 0 : categories[j];
+                        recorded[r * k + c]++;
+                        double d = ends[i] - starts[j];
+                        if (d > 0) {
+                            dur[w] = d;
+                            logD[w] = Math.log(d);
+                            cat[w] = c;
+                            w++;
+                        }
+                    }
                 }
-                recorded[r * k + c]++;
-                double d = ends[i] - starts[j];
-                if (d > 0) {
-                    dur[w] = d;
-                    logD[w] = Math.log(d);
-                    cat[w] = c;
-                    w++;
-                }
-            }
+            };
+        }
+        if (half < n) {
+            java.util.concurrent.CompletableFuture<Void> second = java.util.concurrent.CompletableFuture.runAsync(fill[1],
+                    java.util.concurrent.ForkJoinPool.commonPool());
+            fill[0].run();
+            second.join();
+        } else {
+            fill[0].run();
         }
         return new Prepared(n, k, off, logD, dur, cat, recorded, tot, ids == null ? null : ids.clone(), order);
     }
