@@ -29,7 +29,11 @@ import picocli.CommandLine.Option;
             "resolved = deaths / (deaths + recoveries) (needs recoveries; biased when",
             "the times to death and to recovery differ); adjusted = deaths / sum of",
             "cases(t) F(T - t + 1) with the onset-to-death delay F (Nishiura et al.",
-            "2009), profile-likelihood interval with the delay taken as known."})
+            "2009), profile-likelihood interval with the delay taken as known;",
+            "resolved-adjusted (with --recovery-family/-mean/-sd and a recoveries",
+            "column) = the p that balances deaths against expected deaths and",
+            "recoveries against expected recoveries, each by its own delay",
+            "(docs/methods.md section 5)."})
 public final class FatalityCommand extends AbstractCommand {
 
     @Option(names = "--input", required = true, paramLabel = "FILE", description = "Daily counts with deaths (CSV).")
@@ -43,6 +47,16 @@ public final class FatalityCommand extends AbstractCommand {
 
     @Option(names = "--delay-sd", required = true, paramLabel = "DAYS", description = "Onset-to-death sd.")
     double delaySd;
+
+    @Option(names = "--recovery-family", paramLabel = "FAMILY",
+            description = "Onset-to-recovery family (with --recovery-mean and --recovery-sd).")
+    String recoveryFamily;
+
+    @Option(names = "--recovery-mean", paramLabel = "DAYS", description = "Onset-to-recovery mean.")
+    Double recoveryMean;
+
+    @Option(names = "--recovery-sd", paramLabel = "DAYS", description = "Onset-to-recovery sd.")
+    Double recoverySd;
 
     @Option(names = "--level", paramLabel = "LEVEL", defaultValue = "0.95", description = "Interval level (default ${DEFAULT-VALUE}).")
     double level;
@@ -59,11 +73,16 @@ public final class FatalityCommand extends AbstractCommand {
         Cli.level(level);
         DelayFamily fam = DelayFamilies.byName(delayFamily);
         ParametricDelay f = fam.ofMeanSd(Cli.positive("--delay-mean", delayMean), Cli.positive("--delay-sd", delaySd));
+        ParametricDelay recovery = recoveryDelay();
         ReadResult<DailyCounts> read = CsvInput.dailyCounts(file, input.readOptions());
         DailyCounts c = read.data();
         if (!c.hasDeaths()) {
             throw new IllegalArgumentException(read.file() + ": a fatality ratio needs a deaths column");
         }
+        if (recovery != null && !c.hasRecoveries()) {
+            throw new IllegalArgumentException(read.file() + ": --recovery-family needs a recoveries column");
+        }
+        Estimate resolvedAdjusted = recovery == null ? null : FatalityEstimator.resolvedAdjusted(c, f, recovery, level);
         Estimate crude = FatalityEstimator.crude(c, level);
         Estimate resolved = c.hasRecoveries() ? FatalityEstimator.resolvedOnly(c, level) : null;
         Estimate adjusted = FatalityEstimator.windowAdjusted(c, f, level);
@@ -75,6 +94,9 @@ public final class FatalityCommand extends AbstractCommand {
             json.putNull("resolved");
         }
         json.set("adjusted", JsonOutput.estimate(adjusted));
+        if (resolvedAdjusted != null) {
+            json.set("resolvedAdjusted", JsonOutput.estimate(resolvedAdjusted));
+        }
         json.set("crudeInterval", JsonOutput.estimate(crude));
         if (resolved != null) {
             json.set("resolvedInterval", JsonOutput.estimate(resolved));
@@ -89,13 +111,36 @@ public final class FatalityCommand extends AbstractCommand {
         d.put("family", fam.name());
         d.put("mean", delayMean);
         d.put("sd", delaySd);
+        if (recovery != null) {
+            ObjectNode rd = json.putObject("recoveryDelay");
+            rd.put("family", DelayFamilies.byName(recoveryFamily).name());
+            rd.put("mean", recoveryMean);
+            rd.put("sd", recoverySd);
+        }
         TextTable t = TextTable.of("ratio", "estimate (95% interval)", "note")
                 .row("crude", Cli.cell(crude), "too low while deaths are still to come")
                 .row("resolved", resolved == null ? "no recoveries column" : Cli.cell(resolved),
                         resolved == null ? "" : "deaths / (deaths + recoveries)")
                 .row("adjusted", Cli.cell(adjusted), "for deaths still to come (" + fam.name() + " delay, mean "
                         + TextTable.number(delayMean) + ", sd " + TextTable.number(delaySd) + ")");
+        if (resolvedAdjusted != null) {
+            t.row("resolved-adjusted", Cli.cell(resolvedAdjusted), "deaths and recoveries, each for its own delay");
+        }
         emit(json, t);
         return ExitCode.OK;
+    }
+
+    /** The onset-to-recovery delay, or null if none of its three options is given. */
+    private ParametricDelay recoveryDelay() {
+        int given = (recoveryFamily != null ? 1 : 0) + (recoveryMean != null ? 1 : 0) + (recoverySd != null ? 1 : 0);
+        if (given == 0) {
+            return null;
+        }
+        if (given < 3) {
+            throw new IllegalArgumentException("--recovery-family, --recovery-mean and --recovery-sd go together;"
+                    + " give all three or none");
+        }
+        return DelayFamilies.byName(recoveryFamily).ofMeanSd(Cli.positive("--recovery-mean", recoveryMean),
+                Cli.positive("--recovery-sd", recoverySd));
     }
 }

@@ -210,6 +210,35 @@ class DelayCommandsTest {
                 "--delay-sd", "0");
         assertEquals(ExitCode.BAD_INPUT, r.code());
         assertEquals("incipit: --delay-sd must be finite and > 0, was 0.0" + CliRun.NL, r.err());
+        // with an onset-to-recovery delay G (gamma, mean 14, sd 5): the score of the two-outcome
+        // likelihood d log p - p uD + rec log(1 - p) - (1 - p) uR vanishes where
+        // (uD - uR) p^2 - (uD - uR + d + rec) p + d = 0 (docs/methods.md section 5; solved by hand)
+        GammaDelay g = GammaDelay.ofMeanSd(14, 5);
+        double uR = 0;
+        for (int t = 0; t < cases.length; t++) {
+            uR += cases[t] * g.cdf(9 - t + 1);
+        }
+        double delta = u - uR;
+        double bq = delta + d + rec;
+        double pHat = (bq - Math.sqrt(bq * bq - 4 * delta * d)) / (2 * delta);
+        r = CliRun.of("fatality", "--input", p.toString(), "--delay-family", "gamma", "--delay-mean", "10",
+                "--delay-sd", "4", "--recovery-family", "gamma", "--recovery-mean", "14", "--recovery-sd", "5", "--json");
+        assertEquals(0, r.code(), r.err());
+        j = JsonOutput.read(r.out());
+        assertEquals(pHat, j.at("/resolvedAdjusted/estimate").asDouble(), 1e-10);
+        assertTrue(j.at("/resolvedAdjusted/lower").asDouble() < pHat && pHat < j.at("/resolvedAdjusted/upper").asDouble());
+        assertEquals(14, j.at("/recoveryDelay/mean").asDouble(), 0);
+        r = CliRun.of("fatality", "--input", p.toString(), "--delay-family", "gamma", "--delay-mean", "10",
+                "--delay-sd", "4", "--recovery-family", "gamma", "--recovery-mean", "14");
+        assertEquals(ExitCode.BAD_INPUT, r.code());
+        assertEquals("incipit: --recovery-family, --recovery-mean and --recovery-sd go together; give all three or none"
+                + CliRun.NL, r.err());
+        Path norec = dir.resolve("nr.csv");
+        Files.writeString(norec, "day,cases,deaths\n0,3,0\n1,4,1\n");
+        r = CliRun.of("fatality", "--input", norec.toString(), "--delay-family", "gamma", "--delay-mean", "10",
+                "--delay-sd", "4", "--recovery-family", "gamma", "--recovery-mean", "14", "--recovery-sd", "5");
+        assertEquals(ExitCode.BAD_INPUT, r.code());
+        assertEquals("incipit: " + norec + ": --recovery-family needs a recoveries column" + CliRun.NL, r.err());
         Path nod = dir.resolve("n.csv");
         Files.writeString(nod, "day,cases\n0,3\n1,4\n");
         r = CliRun.of("fatality", "--input", nod.toString(), "--delay-family", "gamma", "--delay-mean", "10",
