@@ -49,14 +49,41 @@ public final class AmbiguousStartEstimator {
     private AmbiguousStartEstimator() {
     }
 
+    /** How the intervals of a converged fit are made. */
+    public enum Intervals {
+        /**
+         * {@link #PROFILE} for fewer than {@link AmbiguousStartEstimator#PROFILE_BELOW_CASES}
+         * cases, {@link #DELTA} from there on (where the two agree and the profile costs a
+         * few hundred extra maximisations over large data).
+         */
+        AUTOMATIC,
+        /**
+         * Wald on the estimation scale (log, logit) for the parameters and p, delta method on
+         * the log scale for the mean, sd and quantiles of H (methods "wald-log", "wald-logit",
+         * "delta-log"): the cheapest, and too narrow in small samples (docs/methods.md,
+         * section 1).
+         */
+        DELTA,
+        /** Profile likelihood for every parameter, p and every quantity of H (method "profile"). */
+        PROFILE
+    }
+
+    /**
+     * Below this many cases {@link Intervals#AUTOMATIC} makes profile-likelihood intervals. At
+     * 500 cases the delta-method intervals still under-cover slightly (docs/methods.md,
+     * section 1); the profile's cost grows with n (about 100 Newton runs on the whole data).
+     */
+    public static final int PROFILE_BELOW_CASES = 1000;
+
     /**
      * Options of the maximum-likelihood fit.
      *
      * @param level          interval coverage in (0, 1)
      * @param quantileLevels probabilities in (0, 1) of the quantiles of H to report (copied)
+     * @param intervals      how intervals are made, not null
      */
-    public record Options(double level, List<Double> quantileLevels) {
-        /** @throws IllegalArgumentException if level or a quantile probability is outside (0, 1) */
+    public record Options(double level, List<Double> quantileLevels, Intervals intervals) {
+        /** @throws IllegalArgumentException if level or a quantile probability is outside (0, 1), or intervals is null */
         public Options {
             if (!(level > 0 && level < 1)) {
                 throw new IllegalArgumentException("level must be in (0, 1), was " + level);
@@ -67,11 +94,33 @@ public final class AmbiguousStartEstimator {
                     throw new IllegalArgumentException("quantile levels must be in (0, 1), one was " + p);
                 }
             }
+            if (intervals == null) {
+                throw new IllegalArgumentException("intervals must be one of " + java.util.Arrays.toString(
+                        Intervals.values()) + ", was null");
+            }
         }
 
-        /** @return level 0.95, quantiles at 0.5 and 0.95 */
+        /**
+         * Options with {@link Intervals#AUTOMATIC} intervals.
+         *
+         * @param level          interval coverage in (0, 1)
+         * @param quantileLevels probabilities in (0, 1) of the quantiles of H (copied)
+         */
+        public Options(double level, List<Double> quantileLevels) {
+            this(level, quantileLevels, Intervals.AUTOMATIC);
+        }
+
+        /** @return level 0.95, quantiles at 0.5 and 0.95, {@link Intervals#AUTOMATIC} intervals */
         public static Options defaults() {
-            return new Options(0.95, List.of(0.5, 0.95));
+            return new Options(0.95, List.of(0.5, 0.95), Intervals.AUTOMATIC);
+        }
+
+        /**
+         * @param method how intervals are made, not null
+         * @return these options with that interval method
+         */
+        public Options withIntervals(Intervals method) {
+            return new Options(level, quantileLevels, method);
         }
     }
 
@@ -262,6 +311,31 @@ public final class AmbiguousStartEstimator {
         int k = data.categories;
         List<String> labels = categoryLabels != null ? categoryLabels : defaultLabels(k);
         MaximumLikelihoodFit fit = maximumLikelihood(data, family, history, labels);
+        boolean profile = options.intervals() == Intervals.PROFILE
+                || (options.intervals() == Intervals.AUTOMATIC && data.n < PROFILE_BELOW_CASES);
+        for (int attempt = 0; ; attempt++) {
+            try {
+                return assemble(data, family, history, options, labels, fit, profile);
+            } catch (ProfileIntervals.HigherMaximum h) {
+                // the profile left the fitted mode for a higher one: refit from there
+                if (attempt >= MAX_REFITS) {
+                    throw new EstimationException("profile intervals kept finding higher maxima than the fit ("
+                            + (attempt + 1) + " refits, last log-likelihood " + h.value + ")");
+                }
+                LOG.debug("profile found log-likelihood {} above the fit's {}; refitting", h.value,
+                        fit.logLikelihood());
+                Optimum o = Maximiser.newton().maximise(fit.likelihood(), h.theta);
+                fit = MaximumLikelihoodFit.of(fit.parameterisation(), fit.likelihood(), Maximiser.newton(), o, data.n);
+            }
+        }
+    }
+
+    /** Refits allowed when the profile finds a higher maximum than the fit. */
+    private static final int MAX_REFITS = 5;
+
+    private static AmbiguousStartFit assemble(Prepared data, Family family, ExposureHistory history, Options options,
+                                              List<String> labels, MaximumLikelihoodFit fit, boolean profile) {
+        int k = data.categories;
         List<ParameterTransform> transforms = family.transforms();
         LOG.debug("{} fit under {}: {}", family.label, history.label(), fit);
         double[] nat = fit.naturalEstimate();
@@ -279,20 +353,29 @@ public final class AmbiguousStartEstimator {
         String message = edge.length() == 0 ? fit.message()
                 : "maximum on the boundary of the parameter space (" + edge + "): the " + history.label()
                         + " exposure history is probably wrong for these data; " + fit.message();
+        double level = options.level();
+        ProfileIntervals pi = interior && profile
+                ? new ProfileIntervals(fit.likelihood(), family, fit.unconstrainedEstimate(), fit.logLikelihood())
+                : null;
+        double[][] cov = interior ? fit.unconstrainedCovariance() : null;
         List<Estimate> params = new ArrayList<>();
         for (int i = 0; i < 2; i++) {
-            params.add(interior ? fit.wald(i, options.level()) : none(nat[i], transforms.get(i), options.level()));
+            params.add(!interior ? none(nat[i], transforms.get(i), level)
+                    : pi != null ? pi.coordinate(i, transforms.get(i), level, Math.sqrt(cov[i][i]))
+                    : fit.wald(i, level));
         }
         List<Estimate> ps = new ArrayList<>();
         for (int c = 0; c < k; c++) {
-            ps.add(interior ? fit.wald(2 + c, options.level())
-                    : none(nat[2 + c], ParameterTransform.logit(), options.level()));
+            int i = 2 + c;
+            ps.add(!interior ? none(nat[i], ParameterTransform.logit(), level)
+                    : pi != null ? pi.coordinate(i, ParameterTransform.logit(), level, Math.sqrt(cov[i][i]))
+                    : fit.wald(i, level));
         }
-        Estimate mean = derived(fit, interior, x -> family.mean(x[0], x[1]), nat, options.level());
-        Estimate sd = derived(fit, interior, x -> family.sd(x[0], x[1]), nat, options.level());
+        Estimate mean = derived(fit, interior, pi, x -> family.mean(x[0], x[1]), nat, level);
+        Estimate sd = derived(fit, interior, pi, x -> family.sd(x[0], x[1]), nat, level);
         List<Estimate> qs = new ArrayList<>();
         for (double pr : options.quantileLevels()) {
-            qs.add(derived(fit, interior, x -> family.quantile(x[0], x[1], pr), nat, options.level()));
+            qs.add(derived(fit, interior, pi, x -> family.quantile(x[0], x[1], pr), nat, level));
         }
         return new AmbiguousStartFit(family.label, history, List.of(family.name1, family.name2), params, labels, ps,
                 mean, sd, options.quantileLevels(), qs, fit.logLikelihood(), fit.aic(), data.n, data.candidates(),
@@ -407,12 +490,12 @@ public final class AmbiguousStartEstimator {
         return starts.size() == 1 ? newton.maximise(ll, starts.get(0)) : newton.maximise(ll, starts);
     }
 
-    /** Delta-method interval on the log scale, or the uninformative interval. */
     /** p closer than this to 0 or 1 is reported as a boundary maximum. */
     static final double BOUNDARY = 1e-6;
 
-    private static Estimate derived(MaximumLikelihoodFit fit, boolean interior, ToDoubleFunction<double[]> f,
-                                    double[] nat, double level) {
+    /** Profile or delta-method (log scale) interval, or the uninformative interval. */
+    private static Estimate derived(MaximumLikelihoodFit fit, boolean interior, ProfileIntervals pi,
+                                    ToDoubleFunction<double[]> f, double[] nat, double level) {
         double v = f.applyAsDouble(nat);
         if (!Double.isFinite(v)) {
             throw new EstimationException("derived quantity of H is not finite at the estimate " + java.util.Arrays.toString(nat));
@@ -420,7 +503,14 @@ public final class AmbiguousStartEstimator {
         if (!interior) {
             return new Estimate(v, 0, Double.POSITIVE_INFINITY, level, AmbiguousStartFit.NO_INTERVAL);
         }
-        return fit.delta(f, level, ParameterTransform.log());
+        Estimate delta = fit.delta(f, level, ParameterTransform.log());
+        if (pi == null) {
+            return delta;
+        }
+        double z = org.apache.commons.statistics.distribution.NormalDistribution.of(0, 1)
+                .inverseCumulativeProbability(0.5 + 0.5 * level);
+        double seLog = (Math.log(delta.upper()) - Math.log(delta.lower())) / (2 * z);
+        return pi.quantity(f, level, seLog);
     }
 
     private static Estimate none(double v, ParameterTransform t, double level) {
