@@ -32,11 +32,13 @@ import org.slf4j.LoggerFactory;
  *     (step 2e-3; truncation error O(h^4) ~ 1e-11, rounding ~1e-13 for G').</li>
  * </ul>
  *
- * <p><b>Profile points.</b> Each is maximised from two starts, the neighbouring point's maximum
- * and the overall maximum's remaining coordinates, and the higher is kept, so that a profile
- * that passes between two local modes of the likelihood (which happens in small samples, where
- * a long H with early infectors and a short H with late ones explain the data about equally
- * well) follows the higher one. A profile point above the maximum means the fit was not the
+ * <p><b>Profile points.</b> Each is maximised from the neighbouring point's maximum; a point
+ * found below the threshold there (or not converged) is maximised again from the overall
+ * maximum's remaining coordinates and the higher value kept, so that a profile that passes
+ * between two local modes of the likelihood (which happens in small samples, where a long H
+ * with early infectors and a short H with late ones explain the data about equally well) is
+ * not cut short by the lower one. (A value above the threshold needs no second start: the
+ * profile is at least that high.) A profile point above the maximum means the fit was not the
  * global maximum: {@link HigherMaximum} carries the better point so that the caller can refit.
  *
  * <p><b>Bounds.</b> Bracketed by steps away from the estimate (first step the delta-method
@@ -294,11 +296,14 @@ final class ProfileIntervals {
     private record Point(double x, double value, double[] y) {
     }
 
-    private Point evaluate(Pin pin, double x, Point near) {
+    private Point evaluate(Pin pin, double x, Point near, double target) {
         Sub sub = new Sub(pin, x);
         double[] fromHat = sub.free(thetaHat);
         Optimum best = null;
         for (double[] start : near == null ? new double[][] {fromHat} : new double[][] {near.y, fromHat}) {
+            if (best != null && best.converged() && best.value() >= target) {
+                break; // a value above the threshold is above it whatever the other start finds
+            }
             if (!Double.isFinite(sub.value(start))) {
                 continue;
             }
@@ -341,7 +346,7 @@ final class ProfileIntervals {
         double delta = step;
         while (true) {
             double x = hat.x + (Math.abs(delta) > REACH ? Math.signum(delta) * REACH : delta);
-            Point p = evaluate(pin, x, inner);
+            Point p = evaluate(pin, x, inner, target);
             if (p.value < target) {
                 return refine(pin, inner, p, target);
             }
@@ -365,7 +370,7 @@ final class ProfileIntervals {
             if (!(x > Math.min(a.x, b.x) && x < Math.max(a.x, b.x))) {
                 x = 0.5 * (a.x + b.x);
             }
-            Point c = evaluate(pin, x, a);
+            Point c = evaluate(pin, x, a, target);
             double fc = Double.isFinite(c.value) ? c.value - target : -Math.max(1, fa);
             if (Math.abs(fc) < 1e-12 * Math.max(1, Math.abs(target))) {
                 return c.x;

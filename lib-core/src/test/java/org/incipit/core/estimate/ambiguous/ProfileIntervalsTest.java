@@ -79,11 +79,14 @@ class ProfileIntervalsTest {
         assertEquals("delta-log", f.mean().method());
         assertEquals("wald-logit", f.p().method());
         assertEquals("wald-log", f.parameters().get(0).method());
-        // AUTOMATIC: profile below PROFILE_BELOW_CASES cases
+        // AUTOMATIC: below PROFILE_BELOW_CASES cases profile for H, logit-Wald for p
         AmbiguousStartFit a = fit(Family.GAMMA, AmbiguousStartEstimator.Intervals.AUTOMATIC);
         assertEquals("profile", a.mean().method());
         assertEquals("profile", a.sd().method());
-        assertEquals("profile", a.p().method());
+        assertEquals("profile", a.quantiles().get(0).method());
+        assertEquals("profile", a.parameters().get(1).method());
+        assertEquals("wald-logit", a.p().method());
+        assertEquals(f.p(), a.p());
         // the same maximum either way
         assertEquals(f.logLikelihood(), a.logLikelihood(), 0);
     }
