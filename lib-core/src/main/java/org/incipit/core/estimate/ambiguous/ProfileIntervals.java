@@ -43,9 +43,9 @@ import org.slf4j.LoggerFactory;
  *
  * <p><b>Bounds.</b> Bracketed by steps away from the estimate (first step the delta-method
  * standard error on the profiled scale, clipped to [0.01, 1], growing by 1.6) and refined by
- * the Illinois variant of regula falsi (Dowell &amp; Jarratt 1971) to 1e-9 (absolute on the
- * profiled scale, i.e. relative for log q). A bound not reached within 40 units of the
- * profiled scale (a factor e^40 for log q) is the edge of the domain.
+ * the Illinois variant of regula falsi (Dowell &amp; Jarratt 1971, BIT 11:168, from memory) to
+ * 1e-9 (absolute on the profiled scale, i.e. relative for log q). A bound not reached within
+ * 40 units of the profiled scale (a factor e^40 for log q) is the edge of the domain.
  */
 final class ProfileIntervals {
 
