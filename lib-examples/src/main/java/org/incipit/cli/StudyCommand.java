@@ -43,7 +43,8 @@ import picocli.CommandLine.Option;
             "  ambiguous-open-weibull, ambiguous-open-lognormal, ambiguous-known-total-gamma,",
             "  ambiguous-poisson-total-gamma, ambiguous-open-gamma-em, growth-poisson,",
             "  growth-negative-binomial, euler-lotka, delays-truncated-lognormal,",
-            "  delays-truncated-daily-lognormal, delays-censored-lognormal, incubation-uniform-lognormal,",
+            "  delays-truncated-daily-lognormal, delays-censored-lognormal, delays-truncated-gamma,",
+            "  delays-truncated-daily-gamma, delays-censored-gamma, incubation-uniform-lognormal,",
             "  incubation-growing-lognormal, backward-intervals-gamma, fatality-growing",
             "Results are identical for any --threads."})
 public final class StudyCommand extends AbstractCommand {
@@ -53,7 +54,8 @@ public final class StudyCommand extends AbstractCommand {
             "ambiguous-open-gamma", "ambiguous-open-weibull", "ambiguous-open-lognormal",
             "ambiguous-known-total-gamma", "ambiguous-poisson-total-gamma", "ambiguous-open-gamma-em",
             "growth-poisson", "growth-negative-binomial", "euler-lotka", "delays-truncated-lognormal",
-            "delays-truncated-daily-lognormal", "delays-censored-lognormal", "incubation-uniform-lognormal",
+            "delays-truncated-daily-lognormal", "delays-censored-lognormal", "delays-truncated-gamma",
+            "delays-truncated-daily-gamma", "delays-censored-gamma", "incubation-uniform-lognormal",
             "incubation-growing-lognormal", "backward-intervals-gamma", "fatality-growing");
 
     @Option(names = "--scenario", required = true, paramLabel = "FILE",

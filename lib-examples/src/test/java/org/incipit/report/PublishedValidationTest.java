@@ -46,12 +46,15 @@ class PublishedValidationTest {
             "ambiguous-open-lognormal", "ambiguous-known-total-gamma", "ambiguous-poisson-total-gamma",
             "ambiguous-open-gamma-em", "growth-poisson", "growth-negative-binomial", "euler-lotka",
             "delays-truncated-lognormal", "delays-truncated-daily-lognormal", "delays-censored-lognormal",
+            "delays-truncated-gamma", "delays-truncated-daily-gamma", "delays-censored-gamma",
             "incubation-uniform-lognormal", "incubation-growing-lognormal", "backward-intervals-gamma",
             "fatality-growing");
 
     /** Estimators that are biased by construction under their scenario, shown for contrast. */
     static final List<String> NAIVE = List.of("delays-truncated-lognormal/delay-observed-only",
             "delays-truncated-daily-lognormal/delay-observed-only", "delays-censored-lognormal/delay-observed-only",
+            "delays-truncated-gamma/delay-observed-only", "delays-truncated-daily-gamma/delay-observed-only",
+            "delays-censored-gamma/delay-observed-only",
             "incubation-growing-lognormal/incubation-uniform", "backward-intervals-gamma/interval-backward-naive",
             "backward-intervals-gamma/backward-R-naive", "fatality-growing/fatality-crude");
 
