@@ -7,7 +7,7 @@ and computes 95% profile-likelihood intervals {c : max_{q(theta) = c} l(theta) >
 chi2_1(0.95)/2} by a different method from the Java code: each constrained maximum by scipy
 SLSQP with the equality constraint q(theta) = c (from 3 starts, best kept), each bound by
 brentq on the profile minus the threshold. Quantities: the two family parameters, p, and the
-mean, sd and median of H; families gamma and lognormal.
+mean, sd and median of H; families gamma, Weibull and lognormal.
 
 Writes lib-core/src/test/resources/org/incipit/core/estimate/ambiguous/profile_intervals.csv.
 Run from the repository root:  python3 reference/ambiguous_profile_reference.py
@@ -43,6 +43,8 @@ def quantity(family, name, theta):
     a, b = ref.natural(family, theta[:2])
     if family == "gamma":
         dist = stats.gamma(a, scale=1.0 / b)
+    elif family == "weibull":
+        dist = stats.weibull_min(a, scale=b)
     else:
         dist = stats.lognorm(b, scale=np.exp(a))
     if name == "param1":
@@ -64,7 +66,7 @@ def main():
     data = ref.Data(read_rows("open_one_kind"))
     rows = []
     threshold = stats.chi2.ppf(LEVEL, 1) / 2
-    for family in ("gamma", "lognormal"):
+    for family in ("gamma", "weibull", "lognormal"):
         x, f = ref.fit(family, data, "open", 1, ref.starts_for(family, data, 1))
         lhat = -f
         for name in ("param1", "param2", "p", "mean", "sd", "median"):
@@ -102,7 +104,7 @@ def main():
     with open(os.path.join(OUT, "profile_intervals.csv"), "w", newline="") as fh:
         fh.write(ref.HEADER.replace("ambiguous_start_reference.py", "ambiguous_profile_reference.py") + "\n")
         fh.write("# first %d cases of open_one_kind.csv, open history; %g profile-likelihood intervals by"
-                 " SLSQP constrained maxima (3 starts) and brentq; param1/param2 = shape,rate | meanLog,sdLog\n"
+                 " SLSQP constrained maxima (3 starts) and brentq; param1/param2 = shape,rate | shape,scale | meanLog,sdLog\n"
                  % (CASES, LEVEL))
         w = csv.writer(fh)
         w.writerow(["family", "quantity", "loglik", "estimate", "lower", "upper"])

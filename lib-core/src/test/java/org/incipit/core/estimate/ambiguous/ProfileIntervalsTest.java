@@ -21,7 +21,8 @@ import org.junit.jupiter.params.provider.MethodSource;
  */
 class ProfileIntervalsTest {
 
-    private static final Map<String, Family> FAMILIES = Map.of("gamma", Family.GAMMA, "lognormal", Family.LOGNORMAL);
+    private static final Map<String, Family> FAMILIES = Map.of("gamma", Family.GAMMA, "weibull", Family.WEIBULL,
+            "lognormal", Family.LOGNORMAL);
 
     static Prepared firstCases(int n) {
         Prepared all = ReferenceData.read("open_one_kind").data;
