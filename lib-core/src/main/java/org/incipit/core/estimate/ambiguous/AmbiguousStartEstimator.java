@@ -365,7 +365,8 @@ public final class AmbiguousStartEstimator {
         boolean interior = fit.converged() && edge.length() == 0;
         String message = edge.length() == 0 ? fit.message()
                 : "maximum on the boundary of the parameter space (" + edge + "): the " + history.label()
-                        + " exposure history is probably wrong for these data; " + fit.message();
+                        + " exposure history may be wrong for these data, or (in small samples) they hold too little"
+                        + " information about p; " + fit.message();
         double level = options.level();
         ProfileIntervals pi = interior && profile
                 ? new ProfileIntervals(fit.likelihood(), family, fit.unconstrainedEstimate(), fit.logLikelihood())
