@@ -157,9 +157,11 @@ public final class AmbiguousStartEstimator {
      * @param cases   the cases
      * @param family  gamma, Weibull or lognormal
      * @param history the exposure-history model
-     * @param options level and quantiles
+     * @param options level, quantiles and interval method
      * @return the fit; check {@link AmbiguousStartFit#converged()}
      * @throws IllegalArgumentException as {@link #fit(AmbiguousStartCases, DelayFamily, ExposureHistory)}
+     * @throws EstimationException      if profile intervals keep finding maxima above the fit
+     *                                  (more than 5 refits; not seen in the simulation studies)
      */
     public static AmbiguousStartFit fit(AmbiguousStartCases cases, DelayFamily family, ExposureHistory history,
                                         Options options) {
