@@ -170,11 +170,13 @@ record Scenario(long seed, double reproductionNumber, double dispersion,
         out.add(write(dir.resolve("intervals.csv"), sb));
 
         // Exposure windows come from a separate survey of cases with a few known contacts in a short
-        // period (the library's exposure sampler, COMPLETE regime: 4 contacts spread over 4 days),
-        // so that the window does not depend on the incubation period; drawn from its own stream.
+        // period (the library's exposure sampler, COMPLETE regime: 4 contacts spread over 4 days, all
+        // before onset), so that the window hardly depends on the incubation period (only a history
+        // reaching onset, possible for incubation periods under 4 days, is redrawn); drawn from its
+        // own stream.
         sb = new StringBuilder(head)
                 .append("# Cases with a known exposure period: window from the first to the last of their contacts\n")
-                .append("# (cut at onset), and onset. Day numbers, day 0 = ").append(origin).append(".\n")
+                .append("# (all before onset), and onset. Day numbers, day 0 = ").append(origin).append(".\n")
                 .append("case,exposure_from,exposure_to,onset\n");
         if (windowCount > 0) {
             ExposureRecords w = ExposureSampler.sample(RandomSource.XO_RO_SHI_RO_128_PP.create(seed + 1),
@@ -186,7 +188,7 @@ record Scenario(long seed, double reproductionNumber, double dispersion,
                 int m = w.candidateCount(i);
                 double onset = w.onset(i) + shift;
                 double from = w.candidateTime(i, 0) + shift;
-                double to = Math.min(w.candidateTime(i, m - 1) + shift, onset);
+                double to = w.candidateTime(i, m - 1) + shift; // the sampler keeps every contact before onset
                 sb.append('W').append(i + 1).append(',').append(fixed(from)).append(',')
                         .append(fixed(to)).append(',').append(fixed(onset)).append('\n');
             }

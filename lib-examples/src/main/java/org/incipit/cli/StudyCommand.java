@@ -41,9 +41,10 @@ import picocli.CommandLine.Option;
             "Shipped scenarios (give the name instead of a file):",
             "  normal-calibration, exponential-calibration, ambiguous-open-gamma,",
             "  ambiguous-open-weibull, ambiguous-open-lognormal, ambiguous-known-total-gamma,",
-            "  ambiguous-poisson-total-gamma, ambiguous-open-gamma-em, growth-poisson,",
-            "  growth-negative-binomial, euler-lotka, delays-truncated-lognormal,",
-            "  delays-truncated-daily-lognormal, delays-censored-lognormal, incubation-uniform-lognormal,",
+            "  ambiguous-poisson-total-gamma, ambiguous-complete-gamma, ambiguous-open-gamma-em,",
+            "  growth-poisson, growth-negative-binomial, euler-lotka, delays-truncated-lognormal,",
+            "  delays-truncated-daily-lognormal, delays-censored-lognormal, delays-truncated-gamma,",
+            "  delays-truncated-daily-gamma, delays-censored-gamma, incubation-uniform-lognormal,",
             "  incubation-growing-lognormal, backward-intervals-gamma, fatality-growing",
             "Results are identical for any --threads."})
 public final class StudyCommand extends AbstractCommand {
@@ -51,9 +52,11 @@ public final class StudyCommand extends AbstractCommand {
     /** Scenarios shipped as resources, runnable by name. */
     static final List<String> SHIPPED = List.of("normal-calibration", "exponential-calibration",
             "ambiguous-open-gamma", "ambiguous-open-weibull", "ambiguous-open-lognormal",
-            "ambiguous-known-total-gamma", "ambiguous-poisson-total-gamma", "ambiguous-open-gamma-em",
+            "ambiguous-known-total-gamma", "ambiguous-poisson-total-gamma", "ambiguous-complete-gamma",
+            "ambiguous-open-gamma-em",
             "growth-poisson", "growth-negative-binomial", "euler-lotka", "delays-truncated-lognormal",
-            "delays-truncated-daily-lognormal", "delays-censored-lognormal", "incubation-uniform-lognormal",
+            "delays-truncated-daily-lognormal", "delays-censored-lognormal", "delays-truncated-gamma",
+            "delays-truncated-daily-gamma", "delays-censored-gamma", "incubation-uniform-lognormal",
             "incubation-growing-lognormal", "backward-intervals-gamma", "fatality-growing");
 
     @Option(names = "--scenario", required = true, paramLabel = "FILE",

@@ -51,10 +51,9 @@ class IntervalsCommandTest {
         // 40 seeded files of 200 cases from an open stream (p = 0.3, 1 exposure per day): the 95%
         // intervals of the mean and of p should each contain the truth in 33..40 of them
         // (P(X <= 32) = 0.0007 for X ~ Binomial(40, 0.95), scipy 1.17 binom.cdf(32, 40, 0.95)).
-        // n = 200 is the sample size at which the estimator's own coverage test checks nominal
-        // coverage. At smaller n the delta-method interval of the mean is too narrow: in 200 sets
-        // each, it contained the truth 166 times at n = 30, 177 at n = 60, 182 at n = 150
-        // (measured while writing this test; p stayed at 192-193 of 200).
+        // At n = 200 the default intervals (profile likelihood for the mean below 1000 cases) are
+        // at nominal coverage; below about 120 cases they fall short (92-94% at 30-60 cases; the
+        // table in docs/methods.md, section 1, from SmallSampleCoverageTest).
         UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(SEED);
         int meanCover = 0;
         int pCover = 0;

@@ -44,14 +44,18 @@ class PublishedValidationTest {
     /** Shipped scenario names, in document order. */
     static final List<String> SCENARIOS = List.of("ambiguous-open-gamma", "ambiguous-open-weibull",
             "ambiguous-open-lognormal", "ambiguous-known-total-gamma", "ambiguous-poisson-total-gamma",
+            "ambiguous-complete-gamma",
             "ambiguous-open-gamma-em", "growth-poisson", "growth-negative-binomial", "euler-lotka",
             "delays-truncated-lognormal", "delays-truncated-daily-lognormal", "delays-censored-lognormal",
+            "delays-truncated-gamma", "delays-truncated-daily-gamma", "delays-censored-gamma",
             "incubation-uniform-lognormal", "incubation-growing-lognormal", "backward-intervals-gamma",
             "fatality-growing");
 
     /** Estimators that are biased by construction under their scenario, shown for contrast. */
     static final List<String> NAIVE = List.of("delays-truncated-lognormal/delay-observed-only",
             "delays-truncated-daily-lognormal/delay-observed-only", "delays-censored-lognormal/delay-observed-only",
+            "delays-truncated-gamma/delay-observed-only", "delays-truncated-daily-gamma/delay-observed-only",
+            "delays-censored-gamma/delay-observed-only",
             "incubation-growing-lognormal/incubation-uniform", "backward-intervals-gamma/interval-backward-naive",
             "backward-intervals-gamma/backward-R-naive", "fatality-growing/fatality-crude");
 
@@ -301,11 +305,7 @@ class PublishedValidationTest {
                 }
             }
         }
-        d.append("\n## Not covered here\n\n- The `complete` exposure history of the ambiguous-start likelihood:"
-                + " the simulator's complete regime (`ExposureModel.complete`) records every exposure of the window,"
-                + " also those after onset, which `AmbiguousStartCases` rejects (a start must not be after the"
-                + " end), so it produces no data set for this estimator; the regime and the observation type"
-                + " disagree on what \"complete\" means and one of them needs changing first.\n"
+        d.append("\n## Not covered here\n\n"
                 + "- The nonparametric EM estimator at 1000 replicates: each replicate costs 51 EM runs; the"
                 + " replicate count used is in the table at the top.\n");
         d.append("\n*Caution: model-based estimates from early, sparse data inform but do not replace the judgement"

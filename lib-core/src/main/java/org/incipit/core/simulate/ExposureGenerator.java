@@ -147,13 +147,18 @@ final class ExposureGenerator {
     private void addFinite(UniformRandomProvider rng, double t, double onset) {
         boolean poissonTotal = model.exposures() == 0;
         DiscreteSampler poisson = poissonTotal ? PoissonSampler.of(rng, model.meanExposures()) : null;
+        boolean all = model.recording() == ExposureRecording.COMPLETE;
+        double w = model.windowDays();
         int tries = 0;
         int total;
         int j;
+        double sum;
+        double uj;
         while (true) {
             if (++tries > MAX_REJECTIONS) {
-                throw new EstimationException("no exposure history with an infecting exposure in "
-                    + MAX_REJECTIONS + " tries (" + model + ")");
+                throw new EstimationException("no exposure history with an infecting exposure"
+                    + (all ? " and every exposure before onset (onset " + (onset - t) + " days after infection)" : "")
+                    + " in " + MAX_REJECTIONS + " tries (" + model + ")");
             }
             total = poissonTotal ? poisson.sample() : model.exposures();
             if (total == 0) {
@@ -172,26 +177,29 @@ final class ExposureGenerator {
                     break;
                 }
             }
-            if (j >= 0) {
+            if (j < 0) {
+                continue;
+            }
+            for (int i = j + 1; i < total; i++) {
+                scratchCat[i] = pick(cumAll, rng);
+            }
+            // sorted uniforms U_(1..total) by normalised exponential spacings
+            if (scratchU.length < total + 1) {
+                scratchU = new double[total + 1];
+            }
+            sum = 0;
+            for (int i = 0; i < total; i++) {
+                sum += standardExponential(rng);
+                scratchU[i] = sum;
+            }
+            sum += standardExponential(rng);
+            uj = scratchU[j] / sum;
+            // COMPLETE: the whole history precedes onset by definition; a history with its last
+            // exposure at or after onset is redrawn (conditioning documented on ExposureModel)
+            if (!all || j == total - 1 || t + w * (scratchU[total - 1] / sum - uj) < onset) {
                 break;
             }
         }
-        for (int i = j + 1; i < total; i++) {
-            scratchCat[i] = pick(cumAll, rng);
-        }
-        // sorted uniforms U_(1..total) by normalised exponential spacings
-        if (scratchU.length < total + 1) {
-            scratchU = new double[total + 1];
-        }
-        double sum = 0;
-        for (int i = 0; i < total; i++) {
-            sum += standardExponential(rng);
-            scratchU[i] = sum;
-        }
-        sum += standardExponential(rng);
-        double w = model.windowDays();
-        double uj = scratchU[j] / sum;
-        boolean all = model.recording() == ExposureRecording.COMPLETE;
         ensureExposures(total);
         int start = n;
         for (int i = 0; i < total; i++) {

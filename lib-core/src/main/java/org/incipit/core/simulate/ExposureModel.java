@@ -39,12 +39,20 @@ import java.util.Arrays;
  * &Sigma;<sub>j</sub> p(1 &minus; p)<sup>j&minus;1</sup> h(onset &minus; e<sub>j</sub>) /
  * (1 &minus; (1 &minus; p)<sup>M</sup>) (with categories, the product form over
  * 1 &minus; &prod;<sub>i</sub>(1 &minus; p(c<sub>i</sub>))).
- * COMPLETE records all M exposures. All of them precede onset whenever the incubation period
- * exceeds the window width w; forcing that for every case (rejecting cases whose onset falls
- * inside the window) would select on X and bias the likelihood, so it is not done: an exposure
- * after onset, if any, is recorded and has h(onset &minus; e) = 0 in the likelihood, which stays
- * exact. Choose w small against the incubation period for a history "wholly before onset"
- * (w = 0: all exposures at one instant). KNOWN_TOTAL records the exposures before onset and the
+ * COMPLETE records all M exposures and, as the {@code complete} exposure history of the
+ * estimators defines it, they all precede onset: a history whose last exposure falls at or after
+ * the onset t + X is redrawn (categories, infection flags and positions; X, fixed by the
+ * transmission tree, is not), so the sample is conditioned on "a case, with every exposure
+ * before onset". Given X = x that event has probability A(x) = 1 &minus; (1 &minus; p)<sup>M</sup>
+ * whenever x &ge; w (every later exposure lies within w of the infection) and less for shorter
+ * x, so the likelihood is &Sigma;<sub>j</sub> p(1 &minus; p)<sup>j&minus;1</sup>
+ * h(d<sub>j</sub>) / A(d<sub>j</sub>): exactly the complete form for a case whose
+ * candidate durations d<sub>j</sub> = onset &minus; e<sub>j</sub> are all &ge; w, which holds
+ * whenever its incubation period is at least 2w (d<sub>j</sub> &ge; x &minus; w). Choose w
+ * small against the incubation period (P(X &lt; 2w) small; w = 0: all exposures at one
+ * instant) for data on which the complete normaliser is right; with a wide window the
+ * conditioning favours short durations and the complete fit is biased.
+ * KNOWN_TOTAL records the exposures before onset and the
  * total M; the ones after onset could not have infected and do not enter the sum.</li>
  * </ul>
  */
@@ -87,7 +95,8 @@ public final class ExposureModel {
     }
 
     /**
-     * Complete history of m exposures in a window of width w days; all are recorded.
+     * Complete history of m exposures in a window of width w days, all before onset (histories
+     * reaching onset are redrawn, see the class comment); all are recorded.
      *
      * @param infectionProbability p in (0, 1]
      * @param exposures            m &ge; 1

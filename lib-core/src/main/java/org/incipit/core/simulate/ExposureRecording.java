@@ -17,7 +17,8 @@ public enum ExposureRecording {
     OPEN,
     /**
      * A complete, finite history: the person's whole exposure history is m exposures in a
-     * window of given width; all m are recorded; the person is a case only if one of them
+     * window of given width, all before onset (a history reaching onset is redrawn, see
+     * {@link ExposureModel}); all m are recorded; the person is a case only if one of them
      * infects, probability 1 &minus; &prod;(1 &minus; p<sub>c</sub>) (1 &minus; (1 &minus; p)<sup>m</sup>
      * without categories).
      */

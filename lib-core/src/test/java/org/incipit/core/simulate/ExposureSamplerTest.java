@@ -116,6 +116,45 @@ class ExposureSamplerTest {
         assertMean(expected, sj, ssj, N, "complete: mean J");
     }
 
+    /**
+     * COMPLETE with an incubation period that can be shorter than the window: histories reaching
+     * onset are redrawn, so every recorded exposure precedes onset and the records are valid
+     * ambiguous-start cases; the share of cases infected by the first of M = 2 exposures follows
+     * the conditioned law, E_H[F_G(X) / (F_G(X) + 1 - p)] (F_G the law of the gap between the two
+     * exposures), from reference/complete_history_conditioning_reference.py (scipy 1.17 quad),
+     * within 4 binomial standard errors. Without the conditioning the share would be p / (1 - q^2)
+     * (0.625 and 0.769 for the two rows).
+     */
+    @Test
+    void completeHistoryIsConditionedOnPrecedingOnset() throws java.io.IOException {
+        java.util.List<String> lines;
+        try (java.io.InputStream in = ExposureSamplerTest.class.getResourceAsStream("complete_conditioning.csv")) {
+            lines = new String(in.readAllBytes(), java.nio.charset.StandardCharsets.UTF_8).lines()
+                    .filter(l -> !l.startsWith("#") && !l.isBlank()).skip(1).toList();
+        }
+        assertEquals(2, lines.size());
+        for (String line : lines) {
+            String[] f = line.split(",");
+            double p = Double.parseDouble(f[0]);
+            double w = Double.parseDouble(f[1]);
+            DelayDistribution h = org.incipit.distributions.GammaDelay.ofShapeRate(Double.parseDouble(f[2]),
+                    Double.parseDouble(f[3]));
+            double expected = Double.parseDouble(f[4]);
+            ExposureRecords x = ExposureSampler.sample(rng(SEED + 7), ExposureModel.complete(p, 2, w), h, N);
+            checkStructure(x);
+            int first = 0;
+            for (int i = 0; i < N; i++) {
+                assertEquals(2, x.candidateCount(i));
+                assertTrue(x.candidateTime(i, 1) < x.onset(i), "every exposure precedes onset");
+                first += x.infectingCandidate(i) == 0 ? 1 : 0;
+            }
+            assertEquals(expected, (double) first / N, 4 * Math.sqrt(expected * (1 - expected) / N),
+                    "share infected by the first exposure, " + line);
+            // and the records are valid observations
+            assertEquals(2 * N, SimulatedData.ambiguousStarts(x, "c").candidateCount());
+        }
+    }
+
     // KNOWN TOTAL, Poisson(mu) exposures: among cases E[M] = mu (1 - (1 - p) e^(-mu p)) / (1 - e^(-mu p))
     // (from E[M s^M] = mu s e^(mu (s - 1)) at s = 1 - p)
     @Test

@@ -10,8 +10,10 @@ import org.incipit.core.likelihood.MaximumLikelihoodFit;
  * Maximum-likelihood fit of an ambiguous-start interval distribution H (a parametric family)
  * together with the transmission probabilities p per contact category.
  *
- * <p>Intervals: Wald on the estimation scale (log for positive parameters, logit for p) mapped
- * back, delta method on the log scale for the mean, sd and quantiles of H. If the fit did not
+ * <p>Intervals, as chosen by {@link AmbiguousStartEstimator.Options#intervals()} and named by
+ * each {@link Estimate#method()}: profile likelihood ("profile"), or Wald on the estimation
+ * scale (log for positive parameters, logit for p) mapped back ("wald-log", "wald-logit") and
+ * the delta method on the log scale for the mean, sd and quantiles of H ("delta-log"). If the fit did not
  * reach an interior maximum with a positive-definite observed information ({@link #converged()}
  * false, e.g. p&#770; on the boundary 0 or 1, which a wrong exposure-history model produces),
  * every interval is the whole parameter domain with method

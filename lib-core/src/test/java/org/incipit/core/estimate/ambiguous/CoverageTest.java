@@ -8,8 +8,10 @@ import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 
 /**
- * Coverage of the 95% intervals of the ML fit (gamma H, open stream; delta-method interval for
- * the mean, Wald on the logit scale for p) in seeded simulated data sets.
+ * Coverage of the 95% delta-method / Wald intervals of the ML fit (gamma H, open stream;
+ * delta-method interval on the log scale for the mean, Wald on the logit scale for p) in seeded
+ * simulated data sets of 200 cases, where they are adequate ({@link SmallSampleCoverageTest}
+ * covers the profile intervals used below 1000 cases).
  */
 class CoverageTest {
 
@@ -24,7 +26,8 @@ class CoverageTest {
             UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed + s);
             Prepared d = Sim.open(rng, n, Sim.gamma(3, 0.6), 0.3, 0.5);
             AmbiguousStartFit f = AmbiguousStartEstimator.fit(d, Family.GAMMA, ExposureHistory.open(),
-                    AmbiguousStartEstimator.Options.defaults(), null);
+                    AmbiguousStartEstimator.Options.defaults().withIntervals(AmbiguousStartEstimator.Intervals.DELTA),
+                    null);
             assertTrue(f.converged(), f.message());
             hit[0] += f.mean().contains(mean) ? 1 : 0;
             hit[1] += f.sd().contains(sd) ? 1 : 0;

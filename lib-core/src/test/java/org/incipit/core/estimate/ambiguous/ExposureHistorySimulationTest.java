@@ -61,6 +61,32 @@ class ExposureHistorySimulationTest {
         assertTrue(o.p().estimate() > 1 - 1e-4, "open form on complete data: p -> 1, was " + o.p().estimate());
     }
 
+    /**
+     * The library's own sampler (ExposureSampler, ExposureModel.complete) through SimulatedData:
+     * 4 exposures in a 6-day window, all before onset (histories reaching onset are redrawn),
+     * p = 0.35, H = gamma(25, 2.5) (mean 10, sd 2 days; P(X &lt; 6) = 0.011 by scipy 1.17
+     * gamma.cdf(6, 25, scale=0.4), and a history is redrawn only if X &lt; 6, so the conditioning
+     * hardly acts and the complete normaliser is right). The complete fit recovers p and the mean within 4 standard errors; the open form
+     * (no normaliser) overstates p by more than 10 of them and the mean by more than 4.
+     */
+    @Test
+    void completeRegimeOfTheLibrarySampler() {
+        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(SEED + 4);
+        org.incipit.core.observe.AmbiguousStartCases cases = org.incipit.core.simulate.SimulatedData.ambiguousStarts(
+                org.incipit.core.simulate.ExposureSampler.sample(rng,
+                        org.incipit.core.simulate.ExposureModel.complete(0.35, 4, 6),
+                        org.incipit.distributions.GammaDelay.ofShapeRate(25, 2.5), 3000), "c");
+        assertEquals(4 * 3000, cases.candidateCount(), "all four exposures of every case recorded");
+        AmbiguousStartFit complete = AmbiguousStartEstimator.fit(cases, org.incipit.distributions.DelayFamilies.GAMMA,
+                ExposureHistory.complete());
+        recovers(complete, 0.35, 10);
+        AmbiguousStartFit open = AmbiguousStartEstimator.fit(cases, org.incipit.distributions.DelayFamilies.GAMMA,
+                ExposureHistory.open());
+        double pse = (complete.p().upper() - complete.p().lower()) / (2 * 1.959963984540054);
+        assertTrue(open.p().estimate() > 0.35 + 4 * pse, "open p " + open.p().estimate() + ", se " + pse);
+        assertTrue(open.mean().estimate() - 10 > 4 * se(complete.mean()), "open mean " + open.mean().estimate());
+    }
+
     @Test
     void finitePeriodPartlyAfterOnset() {
         // M = 1 + Poisson(3) exposures uniform in [0, 10], those before onset recorded; p = 0.25; H = gamma(4, 0.8), mean 5
