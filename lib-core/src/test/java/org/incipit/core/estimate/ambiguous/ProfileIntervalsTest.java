@@ -26,9 +26,13 @@ class ProfileIntervalsTest {
 
     static Prepared firstCases(int n) {
         Prepared all = ReferenceData.read("open_one_kind").data;
+        // the first n cases of the file (Prepared stores cases in candidate-count order)
         int[] idx = new int[n];
-        for (int i = 0; i < n; i++) {
-            idx[i] = i;
+        int w = 0;
+        for (int i = 0; i < all.n; i++) {
+            if ((all.original == null ? i : all.original[i]) < n) {
+                idx[w++] = i;
+            }
         }
         return all.subset(idx);
     }
