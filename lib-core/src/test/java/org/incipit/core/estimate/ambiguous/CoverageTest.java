@@ -18,7 +18,7 @@ class CoverageTest {
     private static final long SEED = 20261204L;
 
     /** Counts of intervals containing the truth: {mean, sd, p, shape}. */
-    static int[] cover(int sets, int n, long seed) {
+    static int[] cover(int sets, int n, long seed, AmbiguousStartEstimator.Intervals intervals) {
         int[] hit = new int[4];
         double mean = 5;
         double sd = Math.sqrt(3) / 0.6;
@@ -26,8 +26,7 @@ class CoverageTest {
             UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed + s);
             Prepared d = Sim.open(rng, n, Sim.gamma(3, 0.6), 0.3, 0.5);
             AmbiguousStartFit f = AmbiguousStartEstimator.fit(d, Family.GAMMA, ExposureHistory.open(),
-                    AmbiguousStartEstimator.Options.defaults().withIntervals(AmbiguousStartEstimator.Intervals.DELTA),
-                    null);
+                    AmbiguousStartEstimator.Options.defaults().withIntervals(intervals), null);
             assertTrue(f.converged(), f.message());
             hit[0] += f.mean().contains(mean) ? 1 : 0;
             hit[1] += f.sd().contains(sd) ? 1 : 0;
@@ -44,7 +43,7 @@ class CoverageTest {
      */
     @Test
     void smallCoverage() {
-        int[] hit = cover(200, 200, SEED);
+        int[] hit = cover(200, 200, SEED, AmbiguousStartEstimator.Intervals.DELTA);
         String[] names = {"mean", "sd", "p", "shape"};
         for (int i = 0; i < hit.length; i++) {
             assertTrue(hit[i] >= 180 && hit[i] <= 199, names[i] + " covered " + hit[i] + " of 200");
@@ -52,15 +51,20 @@ class CoverageTest {
     }
 
     /**
-     * 2000 data sets of n = 200: accept 1868 to 1931 of 2000 (P(X &le; 1867) + P(X &ge; 1932) = 0.0010 for
-     * Binomial(2000, 0.95), scipy.stats.binom 1.17).
+     * 2000 data sets of n = 200 with the default intervals (profile below 1000 cases, logit-Wald
+     * for p): accept 1868 to 1931 of 2000 (P(X &le; 1867) + P(X &ge; 1932) = 0.0010 for
+     * Binomial(2000, 0.95), scipy.stats.binom 1.17). The delta-method intervals on the same data
+     * sets cover the mean 1864, the sd 1870, p 1900 and the shape 1882 times of 2000 (measured
+     * 2026-12-01): the mean's falls just short of the band, which is why the default uses profile
+     * intervals at this size (SmallSampleCoverageTest, docs/methods.md section 1).
      */
     @Test
     @Tag("validation")
     void largeCoverage() {
-        int[] hit = cover(2000, 200, SEED + 100_000);
-        for (int h : hit) {
-            assertTrue(h >= 1868 && h <= 1931, "covered " + h + " of 2000");
+        int[] hit = cover(2000, 200, SEED + 100_000, AmbiguousStartEstimator.Intervals.AUTOMATIC);
+        String[] names = {"mean", "sd", "p", "shape"};
+        for (int i = 0; i < hit.length; i++) {
+            assertTrue(hit[i] >= 1868 && hit[i] <= 1931, names[i] + " covered " + hit[i] + " of 2000");
         }
     }
 }
