@@ -56,7 +56,10 @@ class CoverageTest {
      * Binomial(2000, 0.95), scipy.stats.binom 1.17). The delta-method intervals on the same data
      * sets cover the mean 1864, the sd 1870, p 1900 and the shape 1882 times of 2000 (measured
      * 2026-12-01): the mean's falls just short of the band, which is why the default uses profile
-     * intervals at this size (SmallSampleCoverageTest, docs/methods.md section 1).
+     * intervals at this size (SmallSampleCoverageTest, docs/methods.md section 1). The default
+     * covers 1868 (the band's lower edge; 93.4%), 1884, 1900 and 1895 times: the profile interval
+     * of the mean still covers slightly less than 95% at 200 cases (the likelihood-ratio
+     * statistic is larger than chi-square(1) in small samples; SmallSampleCoverageTest).
      */
     @Test
     @Tag("validation")
