@@ -60,9 +60,10 @@ public final class CsvInput {
         CsvTable t = CsvTable.read(path, INTERVAL_COLUMNS, INTERVAL_OPTIONAL);
         TimeScale scale = TimeScale.of(t, List.of("end", "start"), options);
         AmbiguousStartCases.Builder b = AmbiguousStartCases.builder();
-        record Seen(int line, String endText, double end, String totalText, int total) {
+        record Seen(String id, int line, String endText, double end, String totalText, int total) {
         }
         Map<String, Seen> seen = new HashMap<>();
+        Seen[] last = new Seen[1]; // the case of the last row read: files often list a case's rows together
         int caseColumn = t.column("case");
         int endColumn = t.column("end");
         int startColumn = t.column("start");
@@ -73,8 +74,8 @@ public final class CsvInput {
             String id = required(t, r, caseColumn, "case");
             String endText = t.value(r, endColumn);
             String startText = t.value(r, startColumn);
-            double end = scale.parse("end", endText);
-            double start = scale.parse("start", startText);
+            double end = scale.time(0, r, "end", endText);
+            double start = scale.time(1, r, "start", startText);
             String kind = null;
             if (kindColumn >= 0) {
                 kind = required(t, r, kindColumn, "kind");
@@ -88,7 +89,7 @@ public final class CsvInput {
                 }
             }
             // messages are built only for a bad row: this runs once per row of large files
-            Seen before = seen.get(id);
+            Seen before = last[0] != null && last[0].id().equals(id) ? last[0] : seen.get(id);
             if (before != null && Double.compare(before.end(), end) != 0) {
                 throw new RowFault("end", "case '" + id + "': end '" + endText + "' disagrees with end '"
                         + before.endText() + "' on line " + before.line());
@@ -103,8 +104,10 @@ public final class CsvInput {
             }
             b.addCandidate(id, end, start, kind, total);
             if (before == null) {
-                seen.put(id, new Seen(t.line(r), endText, end, totalText, total));
+                before = new Seen(id, t.line(r), endText, end, totalText, total);
+                seen.put(id, before);
             }
+            last[0] = before;
         });
         return new ReadResult<>(b.build(), t.file, t.size(), scale.dates, scale.origin, skipped);
     }
@@ -135,7 +138,7 @@ public final class CsvInput {
             String what = "case '" + id + "'";
             String primaryText = t.value(r, "primary");
             String secondaryText = t.value(r, "secondary");
-            double primary = scale.parse("primary", primaryText);
+            double primary = scale.time(0, r, "primary", primaryText);
             boolean daily = scale.dates;
             if (t.has("daily") && !t.value(r, "daily").isEmpty()) {
                 daily = bool(t.value(r, "daily"), "daily");
@@ -148,7 +151,7 @@ public final class CsvInput {
                 b.addCensored(id, primary, daily);
                 return;
             }
-            double secondary = scale.parse("secondary", secondaryText);
+            double secondary = scale.time(1, r, "secondary", secondaryText);
             if (secondary < primary) {
                 throw new RowFault("secondary", what + ": secondary '" + secondaryText
                         + "' is before primary '" + primaryText + "'");
@@ -178,9 +181,9 @@ public final class CsvInput {
             String fromText = t.value(r, "exposure_from");
             String toText = t.value(r, "exposure_to");
             String onsetText = t.value(r, "onset");
-            double from = scale.parse("exposure_from", fromText);
-            double to = scale.parse("exposure_to", toText);
-            double onset = scale.parse("onset", onsetText);
+            double from = scale.time(0, r, "exposure_from", fromText);
+            double to = scale.time(1, r, "exposure_to", toText);
+            double onset = scale.time(2, r, "onset", onsetText);
             if (to < from) {
                 throw new RowFault("exposure_to", what + ": exposure_to '" + toText
                         + "' is before exposure_from '" + fromText + "'");

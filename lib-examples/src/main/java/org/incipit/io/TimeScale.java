@@ -4,6 +4,7 @@ import com.fasterxml.jackson.core.io.NumberInput;
 import java.time.LocalDate;
 import java.time.format.DateTimeParseException;
 import java.time.temporal.ChronoUnit;
+import java.util.Arrays;
 import java.util.List;
 import java.util.regex.Pattern;
 
@@ -15,26 +16,37 @@ final class TimeScale {
 
     final boolean dates;
     final LocalDate origin; // null for day numbers without a given origin
+    // For a file of day numbers: per time column (in the order given to of()) and row, the value
+    // read during the scan, or NaN where the scan could not read one; null for dates.
+    private final double[][] read;
 
-    private TimeScale(boolean dates, LocalDate origin) {
+    private TimeScale(boolean dates, LocalDate origin, double[][] read) {
         this.dates = dates;
         this.origin = origin;
+        this.read = read;
     }
 
     /**
      * Scans the time columns. Faults of the file (a column mixing kinds, columns of different
-     * kinds) raise an {@link InputException}; unparsable values are left to {@link #parse}.
+     * kinds) raise an {@link InputException}; unparsable values are left to {@link #parse}. Day
+     * numbers are read during the scan (see {@link #time}), so that each is checked and parsed
+     * once.
      */
     static TimeScale of(CsvTable table, List<String> timeColumns, ReadOptions options) {
         Boolean fileDates = null;
         String firstColumn = null;
         int firstLine = 0;
         LocalDate earliest = null;
-        for (String column : timeColumns) {
+        double[][] read = new double[timeColumns.size()][];
+        for (int k = 0; k < timeColumns.size(); k++) {
+            String column = timeColumns.get(k);
             if (!table.has(column)) {
                 continue;
             }
             int c = table.column(column);
+            double[] values = new double[table.size()];
+            Arrays.fill(values, Double.NaN);
+            read[k] = values;
             Boolean columnDates = null;
             int columnLine = 0;
             for (int r = 0; r < table.size(); r++) {
@@ -74,12 +86,37 @@ final class TimeScale {
                     } catch (DateTimeParseException e) {
                         // reported as a row fault by parse()
                     }
+                } else {
+                    double x = decimal(v);
+                    if (Double.isFinite(x)) {
+                        values[r] = x; // else left to parse(), which reports it
+                    }
                 }
             }
         }
         boolean dates = Boolean.TRUE.equals(fileDates);
         LocalDate origin = options.origin() != null ? options.origin() : (dates ? earliest : null);
-        return new TimeScale(dates, origin);
+        return new TimeScale(dates, origin, dates ? null : read);
+    }
+
+    /**
+     * The time of data row {@code r} in a time column, as {@link #parse} gives it, without
+     * reading the text again where the scan of {@link #of} has read it.
+     *
+     * @param k      the column's index in the list given to {@link #of}
+     * @param r      the data row
+     * @param column the column's name
+     * @param text   the row's value in that column
+     * @return the time in days; a {@link RowFault} if the value is empty or unreadable
+     */
+    double time(int k, int r, String column, String text) {
+        if (read != null && read[k] != null) {
+            double x = read[k][r];
+            if (x == x) { // not NaN
+                return x;
+            }
+        }
+        return parse(column, text);
     }
 
     /**

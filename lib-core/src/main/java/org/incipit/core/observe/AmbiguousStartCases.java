@@ -226,6 +226,8 @@ public final class AmbiguousStartCases {
         private final Map<String, Integer> categoryCodes = new HashMap<>();
         private final List<String> categoryNames = new ArrayList<>();
         private Boolean withCategories; // null until the first candidate
+        private String lastId; // the case of the last candidate added, and its entry
+        private Acc last;
 
         private Builder() {
         }
@@ -271,7 +273,7 @@ public final class AmbiguousStartCases {
                         ? ": candidate has no category, but earlier candidates have one"
                         : ": candidate has category '" + category + "', but earlier candidates have none"));
             }
-            Acc acc = cases.get(caseId);
+            Acc acc = caseId.equals(lastId) ? last : cases.get(caseId);
             if (acc != null) {
                 if (Double.compare(acc.end, end) != 0) {
                     throw new ObservationException("end", what(caseId) + ": end " + end
@@ -309,6 +311,8 @@ public final class AmbiguousStartCases {
                 }
             }
             acc.count = count;
+            lastId = caseId;
+            last = acc;
             candidateCase.add(acc.index);
             candidateStart.add(start);
             candidateCategory.add(code);
@@ -389,6 +393,8 @@ public final class AmbiguousStartCases {
             } catch (ObservationException e) {
                 // the case is new, so it and its candidates are the last entries: cut them off
                 cases.remove(caseId);
+                lastId = null;
+                last = null;
                 ids.subList(savedCases, ids.size()).clear();
                 ends.truncate(savedCases);
                 totals.truncate(savedCases);
