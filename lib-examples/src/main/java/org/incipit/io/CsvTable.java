@@ -19,8 +19,8 @@ import org.apache.commons.csv.CSVRecord;
  * A CSV file read into memory: header and data rows with their line numbers. Rows are
  * addressed by index {@code 0 <= r < size()} and columns by their index in the header
  * ({@link #column(String)}); the values are kept in one flat array (row-major), so that a file
- * of many rows costs one array of strings and no object per row. Text without quotes is read
- * by {@link PlainCsv}, other text by commons-csv; both give the same rows.
+ * of many rows costs one array of strings and no object per row. Plain ASCII text without
+ * quotes is read by {@link PlainCsv}, other text by commons-csv; both give the same rows.
  */
 final class CsvTable {
 
@@ -74,22 +74,12 @@ final class CsvTable {
             return false;
         }
 
-        void add(String[] row, int line) {
+        /** Adds the row of the first {@code count} values of {@code row}, which starts on {@code line}. */
+        void add(String[] row, int count, int line) {
             grow();
             lines[size] = line;
-            if (fits(row.length)) {
+            if (fits(count)) {
                 System.arraycopy(row, 0, values, size * width, width);
-            }
-            size++;
-        }
-
-        void add(List<String> row, int line) {
-            grow();
-            lines[size] = line;
-            if (fits(row.size())) {
-                for (int c = 0; c < width; c++) {
-                    values[size * width + c] = row.get(c);
-                }
             }
             size++;
         }
@@ -121,22 +111,26 @@ final class CsvTable {
      */
     static CsvTable read(Path path, List<String> required, List<String> optional) {
         String file = path.toString();
-        String text;
+        byte[] bytes;
         try {
-            text = decode(Files.readAllBytes(path));
-        } catch (CharacterCodingException e) {
-            throw new InputException(file, 0, 0, "not valid UTF-8 text");
+            bytes = Files.readAllBytes(path);
         } catch (IOException e) {
             throw new InputException(file, "cannot read the file (" + e.getClass().getSimpleName() + ": "
                     + e.getMessage() + ")", e);
         }
-        if (text.startsWith("\uFEFF")) {
-            text = text.substring(1);
-        }
-        PlainCsv.Result plain = PlainCsv.scan(text);
+        PlainCsv.Result plain = PlainCsv.scan(bytes);
         if (plain != null) {
             List<String> columns = header(file, plain.header(), plain.headerLine(), required, optional);
             return table(file, plain.headerLine(), columns, plain.cells());
+        }
+        String text;
+        try {
+            text = decode(bytes);
+        } catch (CharacterCodingException e) {
+            throw new InputException(file, 0, 0, "not valid UTF-8 text");
+        }
+        if (text.startsWith("\uFEFF")) {
+            text = text.substring(1);
         }
         try (CSVParser parser = CSVParser.parse(text, FORMAT)) {
             int headerLine = (int) parser.getCurrentLineNumber();
@@ -150,7 +144,7 @@ final class CsvTable {
                         newlines += newlines(v);
                     }
                 }
-                rows.add(values, (int) parser.getCurrentLineNumber() - newlines);
+                rows.add(values, values.length, (int) parser.getCurrentLineNumber() - newlines);
             }
             return table(file, headerLine, columns, rows);
         } catch (IOException | UncheckedIOException | IllegalStateException | IllegalArgumentException e) {

@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertNull;
 
 import java.io.IOException;
+import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
@@ -17,7 +18,7 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.MethodSource;
 
 /**
- * {@link PlainCsv} gives, for text without quotes, exactly what commons-csv 1.12.0 gives with
+ * {@link PlainCsv} gives, for plain ASCII text, exactly what commons-csv 1.12.0 gives with
  * {@link CsvTable#FORMAT} (the reference): header values and line, and every record's values
  * and line ({@code getCurrentLineNumber()} after the record, as {@link CsvTable} uses it); and
  * it declines exactly the texts it is documented to decline. Seeded texts over an alphabet
@@ -27,8 +28,9 @@ import org.junit.jupiter.params.provider.MethodSource;
 class PlainCsvTest {
 
     private static final String[] PLAIN = {"a", "1", "2.5", ",", ",", ",", " ", "\t", "\n", "\n", "\r", "\r\n",
-        "#", "é", "-", "case", "x y", "  ,", " # ", "#a,b\n", ",,", "\r\r", "\n\r", "\u00a0", "\u0085", "\uFEFF"};
-    private static final String[] NOT_PLAIN = {"\"", "\u2003", "\u0001", "\u000b", "\u001c", "\u3000"};
+        "#", "-", "case", "x y", "  ,", " # ", "#a,b\n", ",,", "\r\r", "\n\r", "\u007f", "'"};
+    private static final String[] NOT_PLAIN = {"\"", "\u0001", "\u000b", "\u001c", "\u0000", "é", "\u00a0",
+        "\u2003", "\uFEFF"};
 
     static Stream<String> texts() {
         UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(20261201L);
@@ -43,17 +45,17 @@ class PlainCsvTest {
                         : PLAIN[rng.nextInt(PLAIN.length)]);
             }
             return b.toString();
-        }).limit(2000);
+        }).limit(1000);
         return Stream.concat(fixed, random);
     }
 
     @ParameterizedTest
     @MethodSource("texts")
     void agreesWithCommonsCsvOrDeclines(String text) throws IOException {
-        PlainCsv.Result plain = PlainCsv.scan(text);
+        PlainCsv.Result plain = PlainCsv.scan(text.getBytes(StandardCharsets.UTF_8));
         boolean declines = Arrays.stream(NOT_PLAIN).anyMatch(text::contains);
         if (declines) {
-            assertNull(plain, "text with a quote, a control character or a non-ASCII space is left to commons-csv");
+            assertNull(plain, "text with a quote, a control character or a non-ASCII character is left to commons-csv");
             return;
         }
         assertNotNull(plain);
