@@ -74,6 +74,27 @@ final class CsvTable {
             return false;
         }
 
+        /** Appends the rows of {@code more}, their line numbers shifted by {@code lines}. */
+        void append(Cells more, int lines) {
+            int n = size + more.size;
+            if (n > this.lines.length) {
+                this.lines = Arrays.copyOf(this.lines, n);
+                values = Arrays.copyOf(values, n * width);
+                faults = faults == null ? null : Arrays.copyOf(faults, n);
+            }
+            System.arraycopy(more.values, 0, values, size * width, more.size * width);
+            for (int r = 0; r < more.size; r++) {
+                this.lines[size + r] = more.lines[r] + lines;
+            }
+            if (more.faults != null) {
+                if (faults == null) {
+                    faults = new String[this.lines.length];
+                }
+                System.arraycopy(more.faults, 0, faults, size, more.size);
+            }
+            size = n;
+        }
+
         /** Adds the row of the first {@code count} values of {@code row}, which starts on {@code line}. */
         void add(String[] row, int count, int line) {
             grow();

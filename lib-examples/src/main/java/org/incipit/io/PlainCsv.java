@@ -3,6 +3,7 @@ package org.incipit.io;
 import java.nio.charset.StandardCharsets;
 import java.util.Arrays;
 import java.util.List;
+import java.util.concurrent.FutureTask;
 
 /**
  * A one-pass scan of the bytes of a plain CSV file, giving exactly what the commons-csv parser
@@ -22,16 +23,21 @@ final class PlainCsv {
     }
 
     private final byte[] text;
-    private final int length;
+    private final int length; // end of the part scanned
     private int pos;
     private int line; // line terminators passed so far
     private boolean declined;
     private String[] values = new String[8];
     private int count; // values of the current record
 
-    private PlainCsv(byte[] text) {
+    /** Files with at least this many bytes of records are scanned in two halves in parallel. */
+    static final int PARALLEL_BYTES = 1 << 20;
+
+    /** A scan of {@code text[from, to)}, where {@code from} is the start of a line. */
+    private PlainCsv(byte[] text, int from, int to) {
         this.text = text;
-        this.length = text.length;
+        this.pos = from;
+        this.length = to;
     }
 
     /**
@@ -40,17 +46,63 @@ final class PlainCsv {
      *     not plain (see the class comment)
      */
     static Result scan(byte[] text) {
-        PlainCsv s = new PlainCsv(text);
+        return scan(text, PARALLEL_BYTES);
+    }
+
+    /**
+     * As {@link #scan(byte[])}; from {@code parallelBytes} bytes of records on, the records
+     * are scanned in two parts split at a line end, in parallel. Without quotes no record spans
+     * lines, so the parts give the same records; the line numbers of the second part are
+     * shifted by the line ends of the first.
+     */
+    static Result scan(byte[] text, int parallelBytes) {
+        PlainCsv s = new PlainCsv(text, 0, text.length);
         if (!s.nextRecord()) {
             return s.declined ? null : new Result(List.of(), 0, null);
         }
         List<String> header = List.of(Arrays.copyOf(s.values, s.count));
         int headerLine = s.line;
-        CsvTable.Cells cells = new CsvTable.Cells(header.size(), 16 + text.length / (8 * header.size()));
-        while (s.nextRecord()) {
-            cells.add(s.values, s.count, s.line);
+        int width = header.size();
+        int split = split(text, s.pos, parallelBytes);
+        if (split == text.length) {
+            CsvTable.Cells cells = s.records(width, text.length);
+            return s.declined ? null : new Result(header, headerLine, cells);
         }
-        return s.declined ? null : new Result(header, headerLine, cells);
+        PlainCsv second = new PlainCsv(text, split, text.length);
+        FutureTask<CsvTable.Cells> later = new FutureTask<>(() -> second.records(width, text.length - split));
+        Thread helper = new Thread(later, "incipit-csv-scan");
+        helper.setDaemon(true);
+        helper.start();
+        PlainCsv first = new PlainCsv(text, s.pos, split);
+        first.line = s.line;
+        CsvTable.Cells cells = first.records(width, split - s.pos);
+        CsvTable.Cells rest = TimeScale.await(later);
+        if (first.declined || second.declined) {
+            return null;
+        }
+        cells.append(rest, first.line);
+        return new Result(header, headerLine, cells);
+    }
+
+    /** @return the start of the line after the middle of {@code text[from, )}, or its length */
+    private static int split(byte[] text, int from, int parallelBytes) {
+        if (text.length - from >= parallelBytes && Runtime.getRuntime().availableProcessors() > 1) {
+            for (int i = from + (text.length - from) / 2; i < text.length; i++) {
+                if (text[i] == '\n') {
+                    return i + 1;
+                }
+            }
+        }
+        return text.length;
+    }
+
+    /** Reads the records of the rest of the part (of about {@code bytes} bytes). */
+    private CsvTable.Cells records(int width, int bytes) {
+        CsvTable.Cells cells = new CsvTable.Cells(width, 16 + bytes / (8 * width));
+        while (nextRecord()) {
+            cells.add(values, count, line);
+        }
+        return cells;
     }
 
     /** Whether {@code b} may appear in plain text: printable ASCII or tab (line ends apart). */

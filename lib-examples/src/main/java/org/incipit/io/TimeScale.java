@@ -100,13 +100,13 @@ final class TimeScale {
         return new TimeScale(dates, origin, dates ? null : read);
     }
 
-    private static void await(FutureTask<Void> task) {
+    /** The task's result, once it has run; its exception if it threw one. */
+    static <T> T await(FutureTask<T> task) {
         boolean interrupted = false;
         try {
             while (true) {
                 try {
-                    task.get();
-                    return;
+                    return task.get();
                 } catch (InterruptedException e) {
                     interrupted = true; // the scan is short: finish it, then keep the interrupt
                 } catch (ExecutionException e) {

@@ -21,7 +21,8 @@ import org.junit.jupiter.params.provider.MethodSource;
  * {@link PlainCsv} gives, for plain ASCII text, exactly what commons-csv 1.12.0 gives with
  * {@link CsvTable#FORMAT} (the reference): header values and line, and every record's values
  * and line ({@code getCurrentLineNumber()} after the record, as {@link CsvTable} uses it); and
- * it declines exactly the texts it is documented to decline. Seeded texts over an alphabet
+ * it declines exactly the texts it is documented to decline; scanned in one part and in two
+ * parts in parallel. Seeded texts over an alphabet
  * that reaches every branch (line ends CR, LF, CRLF, blank and comment lines, spaces and tabs
  * around values, a last line without a line end), bounded in number.
  */
@@ -56,6 +57,7 @@ class PlainCsvTest {
         boolean declines = Arrays.stream(NOT_PLAIN).anyMatch(text::contains);
         if (declines) {
             assertNull(plain, "text with a quote, a control character or a non-ASCII character is left to commons-csv");
+            assertNull(PlainCsv.scan(text.getBytes(StandardCharsets.UTF_8), 1), "also when scanned in two parts");
             return;
         }
         assertNotNull(plain);
@@ -70,6 +72,11 @@ class PlainCsvTest {
                         + " line " + p.getCurrentLineNumber());
             }
         }
+        assertEquals(expected, shown(plain), "one part");
+        assertEquals(expected, shown(PlainCsv.scan(text.getBytes(StandardCharsets.UTF_8), 1)), "two parts in parallel");
+    }
+
+    private static List<String> shown(PlainCsv.Result plain) {
         List<String> actual = new ArrayList<>();
         actual.add("header " + plain.header() + (plain.header().isEmpty() ? "" : " line " + plain.headerLine()));
         CsvTable.Cells c = plain.cells();
@@ -80,6 +87,6 @@ class PlainCsvTest {
                     : fault.substring("row has ".length(), fault.indexOf(" value")) + " values")
                     + " line " + c.lines[r]);
         }
-        assertEquals(expected, actual);
+        return actual;
     }
 }
