@@ -62,7 +62,7 @@ public final class CsvInput {
         AmbiguousStartCases.Builder b = AmbiguousStartCases.builder();
         record Seen(String id, int line, String endText, double end, String totalText, int total) {
         }
-        Map<String, Seen> seen = new HashMap<>();
+        Map<String, Seen> seen = new HashMap<>(Math.min(t.size(), 1 << 22) * 4 / 3 + 1); // no rehashing
         Seen[] last = new Seen[1]; // the case of the last row read: files often list a case's rows together
         int caseColumn = t.column("case");
         int endColumn = t.column("end");

@@ -43,6 +43,7 @@ public final class AmbiguousStartCases {
     private final int[] categories;
     private final int[] totals;
     private final List<String> categoryNames;
+    private final List<String> idList; // an unmodifiable view of ids, which never change
 
     private AmbiguousStartCases(String[] ids, double[] ends, int[] offsets, double[] starts,
                                 int[] categories, int[] totals, List<String> categoryNames) {
@@ -53,6 +54,7 @@ public final class AmbiguousStartCases {
         this.categories = categories;
         this.totals = totals;
         this.categoryNames = categoryNames;
+        this.idList = Collections.unmodifiableList(Arrays.asList(ids));
     }
 
     /** @return a new, empty builder */
@@ -103,7 +105,7 @@ public final class AmbiguousStartCases {
 
     /** @return the case ids in case order (unmodifiable) */
     public List<String> ids() {
-        return List.of(ids);
+        return idList;
     }
 
     /**
