@@ -91,15 +91,15 @@ public final class CsvInput {
             // messages are built only for a bad row: this runs once per row of large files
             Seen before = last[0] != null && last[0].id().equals(id) ? last[0] : seen.get(id);
             if (before != null && Double.compare(before.end(), end) != 0) {
-                throw new RowFault("end", "case '" + id + "': end '" + endText + "' disagrees with end '"
+                throw new RowFault("end", what(id) + ": end '" + endText + "' disagrees with end '"
                         + before.endText() + "' on line " + before.line());
             }
             if (before != null && before.total() != total) {
-                throw new RowFault("exposures_total", "case '" + id + "': exposures_total " + shown(totalText)
+                throw new RowFault("exposures_total", what(id) + ": exposures_total " + shown(totalText)
                         + " disagrees with " + shown(before.totalText()) + " on line " + before.line());
             }
             if (start > end) {
-                throw new RowFault("start", "case '" + id + "': start '" + startText + "' is after end '"
+                throw new RowFault("start", what(id) + ": start '" + startText + "' is after end '"
                         + endText + "'");
             }
             b.addCandidate(id, end, start, kind, total);
@@ -135,7 +135,6 @@ public final class CsvInput {
         List<SkippedRow> skipped = readRows(t, options, Map.of("id", "case", "primary", "primary",
                 "secondary", "secondary"), r -> {
             String id = required(t, r, "case");
-            String what = "case '" + id + "'";
             String primaryText = t.value(r, "primary");
             String secondaryText = t.value(r, "secondary");
             double primary = scale.time(0, r, "primary", primaryText);
@@ -145,7 +144,7 @@ public final class CsvInput {
             }
             if (secondaryText.isEmpty()) {
                 if (cutoff == null) {
-                    throw new RowFault("secondary", what
+                    throw new RowFault("secondary", what(id)
                             + ": secondary is empty (not yet observed), but no cut-off was given");
                 }
                 b.addCensored(id, primary, daily);
@@ -153,7 +152,7 @@ public final class CsvInput {
             }
             double secondary = scale.time(1, r, "secondary", secondaryText);
             if (secondary < primary) {
-                throw new RowFault("secondary", what + ": secondary '" + secondaryText
+                throw new RowFault("secondary", what(id) + ": secondary '" + secondaryText
                         + "' is before primary '" + primaryText + "'");
             }
             b.addObserved(id, primary, secondary, daily);
@@ -177,7 +176,6 @@ public final class CsvInput {
         List<SkippedRow> skipped = readRows(t, options, Map.of("id", "case", "exposureFrom", "exposure_from",
                 "exposureTo", "exposure_to", "onset", "onset"), r -> {
             String id = required(t, r, "case");
-            String what = "case '" + id + "'";
             String fromText = t.value(r, "exposure_from");
             String toText = t.value(r, "exposure_to");
             String onsetText = t.value(r, "onset");
@@ -185,11 +183,11 @@ public final class CsvInput {
             double to = scale.time(1, r, "exposure_to", toText);
             double onset = scale.time(2, r, "onset", onsetText);
             if (to < from) {
-                throw new RowFault("exposure_to", what + ": exposure_to '" + toText
+                throw new RowFault("exposure_to", what(id) + ": exposure_to '" + toText
                         + "' is before exposure_from '" + fromText + "'");
             }
             if (onset < to) {
-                throw new RowFault("onset", what + ": onset '" + onsetText + "' is before exposure_to '"
+                throw new RowFault("onset", what(id) + ": onset '" + onsetText + "' is before exposure_to '"
                         + toText + "' (cut the exposure window at the onset)");
             }
             b.add(id, from, to, onset);
@@ -312,6 +310,11 @@ public final class CsvInput {
         } catch (NumberFormatException e) {
             throw new RowFault(column, "column '" + column + "': " + text + " is too large");
         }
+    }
+
+    /** How a row's message names its case; built only for a bad row. */
+    private static String what(String id) {
+        return "case '" + id + "'";
     }
 
     private static String shown(String text) {
