@@ -1,12 +1,14 @@
 package org.incipit.cli;
 
 import java.util.concurrent.Callable;
-import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Spec;
 
-/** The top command {@code incipit}: lists the subcommands; does nothing by itself. */
+/**
+ * The top command {@code incipit}: lists the subcommands; does nothing by itself. Its
+ * subcommands are registered by {@link Main#commandLine}.
+ */
 @Command(name = "incipit",
         mixinStandardHelpOptions = true,
         versionProvider = VersionProvider.class,
@@ -18,11 +20,7 @@ import picocli.CommandLine.Spec;
         footer = {"",
             "Exit codes: 0 success, 1 internal error, 2 bad usage or input,",
             "            3 estimation failed.",
-            "Input files: see 'incipit help check'."},
-        subcommands = {CheckCommand.class, SimulateCommand.class, GrowthCommand.class,
-            ReproductionCommand.class, IntervalsCommand.class, DelaysCommand.class,
-            IncubationCommand.class, FatalityCommand.class, StudyCommand.class, DemoCommand.class,
-            AnalyseCommand.class, CommandLine.HelpCommand.class})
+            "Input files: see 'incipit help check'."})
 public final class IncipitCommand implements Callable<Integer> {
 
     @Spec

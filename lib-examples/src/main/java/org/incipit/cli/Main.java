@@ -2,6 +2,7 @@ package org.incipit.cli;
 
 import java.io.PrintWriter;
 import java.nio.charset.StandardCharsets;
+import java.util.List;
 import org.incipit.core.EstimationException;
 import org.incipit.io.InputException;
 import picocli.CommandLine;
@@ -9,7 +10,30 @@ import picocli.CommandLine;
 /** Entry point of the {@code incipit} command-line application. */
 public final class Main {
 
+    /** The subcommands of {@link IncipitCommand}, in the order of its usage help. */
+    static final List<String> SUBCOMMANDS = List.of("check", "simulate", "growth", "reproduction", "intervals",
+            "delays", "incubation", "fatality", "study", "demo", "analyse", "help");
+
     private Main() {
+    }
+
+    /** A new instance of the named subcommand (one of {@link #SUBCOMMANDS}). */
+    static Object subcommand(String name) {
+        return switch (name) {
+            case "check" -> new CheckCommand();
+            case "simulate" -> new SimulateCommand();
+            case "growth" -> new GrowthCommand();
+            case "reproduction" -> new ReproductionCommand();
+            case "intervals" -> new IntervalsCommand();
+            case "delays" -> new DelaysCommand();
+            case "incubation" -> new IncubationCommand();
+            case "fatality" -> new FatalityCommand();
+            case "study" -> new StudyCommand();
+            case "demo" -> new DemoCommand();
+            case "analyse" -> new AnalyseCommand();
+            case "help" -> new CommandLine.HelpCommand();
+            default -> throw new IllegalArgumentException("no subcommand '" + name + "'");
+        };
     }
 
     /**
@@ -35,7 +59,11 @@ public final class Main {
      * @return the exit code (see {@link ExitCode})
      */
     public static int run(PrintWriter out, PrintWriter err, String... args) {
-        int code = commandLine(out, err).execute(args);
+        // picocli reads the annotations of every command it is given when the command line is
+        // built (about 0.1 s for all of them at start-up); a run of one subcommand needs only
+        // that one, while the top command's help, 'help' and a mistyped name need them all.
+        boolean one = args.length > 0 && !args[0].equals("help") && SUBCOMMANDS.contains(args[0]);
+        int code = commandLine(out, err, one ? List.of(args[0]) : SUBCOMMANDS).execute(args);
         out.flush();
         err.flush();
         return code;
@@ -47,7 +75,14 @@ public final class Main {
      * @return the configured top-level command line (all subcommands registered)
      */
     public static CommandLine commandLine(PrintWriter out, PrintWriter err) {
+        return commandLine(out, err, SUBCOMMANDS);
+    }
+
+    private static CommandLine commandLine(PrintWriter out, PrintWriter err, List<String> subcommands) {
         CommandLine cl = new CommandLine(new IncipitCommand());
+        for (String name : subcommands) {
+            cl.addSubcommand(subcommand(name));
+        }
         cl.setOut(out);
         cl.setErr(err);
         cl.setCaseInsensitiveEnumValuesAllowed(true);

@@ -34,6 +34,6 @@
  *     }
  * }
  * }</pre>
- * and list the class in {@code IncipitCommand}'s {@code subcommands}.
+ * and add it to {@code Main}'s list of subcommands ({@code SUBCOMMANDS} and {@code subcommand}).
  */
 package org.incipit.cli;

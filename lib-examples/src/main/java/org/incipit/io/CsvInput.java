@@ -41,7 +41,8 @@ public final class CsvInput {
 
     @FunctionalInterface
     private interface RowReader {
-        void read(CsvTable.Row row);
+        /** Reads data row {@code r} (which has no fault of its own). */
+        void read(int r);
     }
 
     /**
@@ -59,22 +60,27 @@ public final class CsvInput {
         CsvTable t = CsvTable.read(path, INTERVAL_COLUMNS, INTERVAL_OPTIONAL);
         TimeScale scale = TimeScale.of(t, List.of("end", "start"), options);
         AmbiguousStartCases.Builder b = AmbiguousStartCases.builder();
-        record Seen(int line, String endText, double end, String totalText, int total) {
+        record Seen(String id, int line, String endText, double end, String totalText, int total) {
         }
-        Map<String, Seen> seen = new HashMap<>();
+        Map<String, Seen> seen = new HashMap<>(Math.min(t.size(), 1 << 22) * 4 / 3 + 1); // no rehashing
+        Seen[] last = new Seen[1]; // the case of the last row read: files often list a case's rows together
+        int caseColumn = t.column("case");
+        int endColumn = t.column("end");
+        int startColumn = t.column("start");
+        int kindColumn = t.column("kind");
+        int totalColumn = t.column("exposures_total");
         List<SkippedRow> skipped = readRows(t, options, Map.of("id", "case", "end", "end", "start", "start",
-                "category", "kind", "totalExposures", "exposures_total"), row -> {
-            String id = required(t, row, "case");
-            String what = "case '" + id + "'";
-            String endText = t.value(row, "end");
-            String startText = t.value(row, "start");
-            double end = scale.parse("end", endText);
-            double start = scale.parse("start", startText);
+                "category", "kind", "totalExposures", "exposures_total"), r -> {
+            String id = required(t, r, caseColumn, "case");
+            String endText = t.value(r, endColumn);
+            String startText = t.value(r, startColumn);
+            double end = scale.time(0, r, "end", endText);
+            double start = scale.time(1, r, "start", startText);
             String kind = null;
-            if (t.has("kind")) {
-                kind = required(t, row, "kind");
+            if (kindColumn >= 0) {
+                kind = required(t, r, kindColumn, "kind");
             }
-            String totalText = t.has("exposures_total") ? t.value(row, "exposures_total") : "";
+            String totalText = totalColumn >= 0 ? t.value(r, totalColumn) : "";
             int total = AmbiguousStartCases.UNKNOWN_TOTAL;
             if (!totalText.isEmpty()) {
                 total = count(totalText, "exposures_total");
@@ -82,24 +88,28 @@ public final class CsvInput {
                     throw new RowFault("exposures_total", "column 'exposures_total': must be >= 1, was " + totalText);
                 }
             }
-            Seen before = seen.get(id);
+            // messages are built only for a bad row: this runs once per row of large files
+            Seen before = last[0] != null && last[0].id().equals(id) ? last[0] : seen.get(id);
             if (before != null && Double.compare(before.end(), end) != 0) {
-                throw new RowFault("end", what + ": end '" + endText + "' disagrees with end '"
+                throw new RowFault("end", what(id) + ": end '" + endText + "' disagrees with end '"
                         + before.endText() + "' on line " + before.line());
             }
             if (before != null && before.total() != total) {
-                throw new RowFault("exposures_total", what + ": exposures_total " + shown(totalText)
+                throw new RowFault("exposures_total", what(id) + ": exposures_total " + shown(totalText)
                         + " disagrees with " + shown(before.totalText()) + " on line " + before.line());
             }
             if (start > end) {
-                throw new RowFault("start", what + ": start '" + startText + "' is after end '" + endText + "'");
+                throw new RowFault("start", what(id) + ": start '" + startText + "' is after end '"
+                        + endText + "'");
             }
             b.addCandidate(id, end, start, kind, total);
             if (before == null) {
-                seen.put(id, new Seen(row.line(), endText, end, totalText, total));
+                before = new Seen(id, t.line(r), endText, end, totalText, total);
+                seen.put(id, before);
             }
+            last[0] = before;
         });
-        return new ReadResult<>(b.build(), t.file, t.rows.size(), scale.dates, scale.origin, skipped);
+        return new ReadResult<>(b.build(), t.file, t.size(), scale.dates, scale.origin, skipped);
     }
 
     /**
@@ -123,32 +133,31 @@ public final class CsvInput {
         DelayPairs.Builder b = cutoff == null ? DelayPairs.builder()
                 : DelayPairs.builder(scale.parseExternal("cut-off", cutoff));
         List<SkippedRow> skipped = readRows(t, options, Map.of("id", "case", "primary", "primary",
-                "secondary", "secondary"), row -> {
-            String id = required(t, row, "case");
-            String what = "case '" + id + "'";
-            String primaryText = t.value(row, "primary");
-            String secondaryText = t.value(row, "secondary");
-            double primary = scale.parse("primary", primaryText);
+                "secondary", "secondary"), r -> {
+            String id = required(t, r, "case");
+            String primaryText = t.value(r, "primary");
+            String secondaryText = t.value(r, "secondary");
+            double primary = scale.time(0, r, "primary", primaryText);
             boolean daily = scale.dates;
-            if (t.has("daily") && !t.value(row, "daily").isEmpty()) {
-                daily = bool(t.value(row, "daily"), "daily");
+            if (t.has("daily") && !t.value(r, "daily").isEmpty()) {
+                daily = bool(t.value(r, "daily"), "daily");
             }
             if (secondaryText.isEmpty()) {
                 if (cutoff == null) {
-                    throw new RowFault("secondary", what
+                    throw new RowFault("secondary", what(id)
                             + ": secondary is empty (not yet observed), but no cut-off was given");
                 }
                 b.addCensored(id, primary, daily);
                 return;
             }
-            double secondary = scale.parse("secondary", secondaryText);
+            double secondary = scale.time(1, r, "secondary", secondaryText);
             if (secondary < primary) {
-                throw new RowFault("secondary", what + ": secondary '" + secondaryText
+                throw new RowFault("secondary", what(id) + ": secondary '" + secondaryText
                         + "' is before primary '" + primaryText + "'");
             }
             b.addObserved(id, primary, secondary, daily);
         });
-        return new ReadResult<>(b.build(), t.file, t.rows.size(), scale.dates, scale.origin, skipped);
+        return new ReadResult<>(b.build(), t.file, t.size(), scale.dates, scale.origin, skipped);
     }
 
     /**
@@ -165,26 +174,25 @@ public final class CsvInput {
         TimeScale scale = TimeScale.of(t, List.of("exposure_from", "exposure_to", "onset"), options);
         ExposureWindows.Builder b = ExposureWindows.builder();
         List<SkippedRow> skipped = readRows(t, options, Map.of("id", "case", "exposureFrom", "exposure_from",
-                "exposureTo", "exposure_to", "onset", "onset"), row -> {
-            String id = required(t, row, "case");
-            String what = "case '" + id + "'";
-            String fromText = t.value(row, "exposure_from");
-            String toText = t.value(row, "exposure_to");
-            String onsetText = t.value(row, "onset");
-            double from = scale.parse("exposure_from", fromText);
-            double to = scale.parse("exposure_to", toText);
-            double onset = scale.parse("onset", onsetText);
+                "exposureTo", "exposure_to", "onset", "onset"), r -> {
+            String id = required(t, r, "case");
+            String fromText = t.value(r, "exposure_from");
+            String toText = t.value(r, "exposure_to");
+            String onsetText = t.value(r, "onset");
+            double from = scale.time(0, r, "exposure_from", fromText);
+            double to = scale.time(1, r, "exposure_to", toText);
+            double onset = scale.time(2, r, "onset", onsetText);
             if (to < from) {
-                throw new RowFault("exposure_to", what + ": exposure_to '" + toText
+                throw new RowFault("exposure_to", what(id) + ": exposure_to '" + toText
                         + "' is before exposure_from '" + fromText + "'");
             }
             if (onset < to) {
-                throw new RowFault("onset", what + ": onset '" + onsetText + "' is before exposure_to '"
+                throw new RowFault("onset", what(id) + ": onset '" + onsetText + "' is before exposure_to '"
                         + toText + "' (cut the exposure window at the onset)");
             }
             b.add(id, from, to, onset);
         });
-        return new ReadResult<>(b.build(), t.file, t.rows.size(), scale.dates, scale.origin, skipped);
+        return new ReadResult<>(b.build(), t.file, t.size(), scale.dates, scale.origin, skipped);
     }
 
     /**
@@ -217,13 +225,13 @@ public final class CsvInput {
         String suffix = options.skipBadRows()
                 ? " (rows of daily counts are not skipped: a left-out day would leave a gap)" : "";
         readRows(t, strict, Map.of("day", "day", "cases", "cases", "deaths", "deaths",
-                "recoveries", "recoveries", "imported", "imported"), suffix, row -> {
-            String dayText = t.value(row, "day");
+                "recoveries", "recoveries", "imported", "imported"), suffix, r -> {
+            String dayText = t.value(r, "day");
             int day = scale.parseDay("day", dayText);
-            int cases = count(required(t, row, "cases"), "cases");
-            int deaths = optionalCount(t, row, "deaths");
-            int recoveries = optionalCount(t, row, "recoveries");
-            int imported = optionalCount(t, row, "imported");
+            int cases = count(required(t, r, "cases"), "cases");
+            int deaths = optionalCount(t, r, "deaths");
+            int recoveries = optionalCount(t, r, "recoveries");
+            int imported = optionalCount(t, r, "imported");
             int n = b.size();
             if (n > 0) {
                 double expected = scale.parseDay("day", previous[0]) + 1;
@@ -235,9 +243,9 @@ public final class CsvInput {
             }
             b.add(day, cases, deaths, recoveries, imported);
             previous[0] = dayText;
-            previousLine[0] = row.line();
+            previousLine[0] = t.line(r);
         });
-        return new ReadResult<>(b.build(), t.file, t.rows.size(), scale.dates, scale.origin, List.of());
+        return new ReadResult<>(b.build(), t.file, t.size(), scale.dates, scale.origin, List.of());
     }
 
     private static List<SkippedRow> readRows(CsvTable t, ReadOptions options, Map<String, String> fields,
@@ -249,12 +257,12 @@ public final class CsvInput {
                                              String suffix, RowReader reader) {
         List<SkippedRow> skipped = new ArrayList<>();
         int used = 0;
-        for (CsvTable.Row row : t.rows) {
+        for (int r = 0; r < t.size(); r++) {
             String column = null;
-            String reason = row.fault();
+            String reason = t.fault(r);
             if (reason == null) {
                 try {
-                    reader.read(row);
+                    reader.read(r);
                     used++;
                     continue;
                 } catch (RowFault e) {
@@ -267,19 +275,23 @@ public final class CsvInput {
             }
             if (!options.skipBadRows()) {
                 int number = column != null && t.has(column) ? t.number(column) : 0;
-                throw new InputException(t.file, row.line(), number, reason + suffix);
+                throw new InputException(t.file, t.line(r), number, reason + suffix);
             }
-            skipped.add(new SkippedRow(t.file, row.line(), reason));
+            skipped.add(new SkippedRow(t.file, t.line(r), reason));
         }
         if (used == 0) {
-            throw new InputException(t.file, 0, 0, "no usable data rows (all " + t.rows.size()
+            throw new InputException(t.file, 0, 0, "no usable data rows (all " + t.size()
                     + " were bad and skipped)");
         }
         return skipped;
     }
 
-    private static String required(CsvTable t, CsvTable.Row row, String column) {
-        String v = t.value(row, column);
+    private static String required(CsvTable t, int r, String column) {
+        return required(t, r, t.column(column), column);
+    }
+
+    private static String required(CsvTable t, int r, int index, String column) {
+        String v = t.value(r, index);
         if (v.isEmpty()) {
             throw new RowFault(column, "column '" + column + "': value is missing");
         }
@@ -300,12 +312,17 @@ public final class CsvInput {
         }
     }
 
+    /** How a row's message names its case; built only for a bad row. */
+    private static String what(String id) {
+        return "case '" + id + "'";
+    }
+
     private static String shown(String text) {
         return text.isEmpty() ? "(empty)" : "'" + text + "'";
     }
 
-    private static int optionalCount(CsvTable t, CsvTable.Row row, String column) {
-        return t.has(column) ? count(t.value(row, column), column) : DailyCounts.ABSENT;
+    private static int optionalCount(CsvTable t, int r, String column) {
+        return t.has(column) ? count(t.value(r, column), column) : DailyCounts.ABSENT;
     }
 
     private static boolean bool(String text, String column) {

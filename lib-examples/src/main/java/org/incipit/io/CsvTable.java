@@ -8,25 +8,23 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.HashMap;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
-import java.util.Map;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
 
-/** A CSV file read into memory: header and data rows with their line numbers. */
+/**
+ * A CSV file read into memory: header and data rows with their line numbers. Rows are
+ * addressed by index {@code 0 <= r < size()} and columns by their index in the header
+ * ({@link #column(String)}); the values are kept in one flat array (row-major), so that a file
+ * of many rows costs one array of strings and no object per row. Plain ASCII text without
+ * quotes is read by {@link PlainCsv}, other text by commons-csv; both give the same rows.
+ */
 final class CsvTable {
 
-    /**
-     * One data row: 1-based line number where it starts, its trimmed values, and a fault if the
-     * number of values differs from the header (then {@code values} is empty).
-     */
-    record Row(int line, String[] values, String fault) {
-    }
-
-    private static final CSVFormat FORMAT = CSVFormat.RFC4180.builder()
+    static final CSVFormat FORMAT = CSVFormat.RFC4180.builder()
             .setHeader()
             .setSkipHeaderRecord(true)
             .setCommentMarker('#')
@@ -36,20 +34,96 @@ final class CsvTable {
             .setAllowMissingColumnNames(true)
             .build();
 
+    /**
+     * Growing storage of data rows: values row-major in one flat array ({@code width} per row),
+     * a line per row, and a fault for a row whose number of values differs from the header
+     * (its values are then not kept).
+     */
+    static final class Cells {
+        final int width;
+        int size;
+        String[] values;
+        int[] lines;
+        String[] faults; // null while no row has a fault
+
+        Cells(int width, int capacity) {
+            this.width = width;
+            this.values = new String[capacity * width];
+            this.lines = new int[capacity];
+        }
+
+        private void grow() {
+            if (size == lines.length) {
+                int capacity = Math.max(16, 2 * size);
+                lines = Arrays.copyOf(lines, capacity);
+                values = Arrays.copyOf(values, capacity * width);
+                faults = faults == null ? null : Arrays.copyOf(faults, capacity);
+            }
+        }
+
+        private boolean fits(int count) {
+            if (count == width) {
+                return true;
+            }
+            // a row fault, not a file fault: it can be skipped
+            if (faults == null) {
+                faults = new String[lines.length];
+            }
+            faults[size] = "row has " + count + (count == 1 ? " value" : " values") + ", the header has "
+                    + width + " columns";
+            return false;
+        }
+
+        /** Appends the rows of {@code more}, their line numbers shifted by {@code lines}. */
+        void append(Cells more, int lines) {
+            int n = size + more.size;
+            if (n > this.lines.length) {
+                this.lines = Arrays.copyOf(this.lines, n);
+                values = Arrays.copyOf(values, n * width);
+                faults = faults == null ? null : Arrays.copyOf(faults, n);
+            }
+            System.arraycopy(more.values, 0, values, size * width, more.size * width);
+            for (int r = 0; r < more.size; r++) {
+                this.lines[size + r] = more.lines[r] + lines;
+            }
+            if (more.faults != null) {
+                if (faults == null) {
+                    faults = new String[this.lines.length];
+                }
+                System.arraycopy(more.faults, 0, faults, size, more.size);
+            }
+            size = n;
+        }
+
+        /** Adds the row of the first {@code count} values of {@code row}, which starts on {@code line}. */
+        void add(String[] row, int count, int line) {
+            grow();
+            lines[size] = line;
+            if (fits(count)) {
+                System.arraycopy(row, 0, values, size * width, width);
+            }
+            size++;
+        }
+    }
+
     final String file;
     final int headerLine;
     final List<String> columns;  // lower case, header order
-    final List<Row> rows;
-    private final Map<String, Integer> index = new HashMap<>();
+    private final int width;
+    private final int size;
+    private final String[] cells;  // row-major, width per row; a faulty row's cells are null
+    private final int[] lines;
+    private final String[] faults; // null if no row has a fault
 
-    private CsvTable(String file, int headerLine, List<String> columns, List<Row> rows) {
+    private CsvTable(String file, int headerLine, List<String> columns, Cells rows) {
         this.file = file;
         this.headerLine = headerLine;
         this.columns = columns;
-        this.rows = rows;
-        for (int i = 0; i < columns.size(); i++) {
-            index.put(columns.get(i), i);
-        }
+        this.width = columns.size();
+        this.size = rows.size;
+        this.cells = rows.values;
+        this.lines = rows.lines;
+        this.faults = rows.faults;
     }
 
     /**
@@ -58,89 +132,150 @@ final class CsvTable {
      */
     static CsvTable read(Path path, List<String> required, List<String> optional) {
         String file = path.toString();
-        String text;
+        byte[] bytes;
         try {
-            text = StandardCharsets.UTF_8.newDecoder()
-                    .decode(ByteBuffer.wrap(Files.readAllBytes(path))).toString();
-        } catch (CharacterCodingException e) {
-            throw new InputException(file, 0, 0, "not valid UTF-8 text");
+            bytes = Files.readAllBytes(path);
         } catch (IOException e) {
             throw new InputException(file, "cannot read the file (" + e.getClass().getSimpleName() + ": "
                     + e.getMessage() + ")", e);
         }
+        PlainCsv.Result plain = PlainCsv.scan(bytes);
+        if (plain != null) {
+            List<String> columns = header(file, plain.header(), plain.headerLine(), required, optional);
+            return table(file, plain.headerLine(), columns, plain.cells());
+        }
+        String text;
+        try {
+            text = decode(bytes);
+        } catch (CharacterCodingException e) {
+            throw new InputException(file, 0, 0, "not valid UTF-8 text");
+        }
         if (text.startsWith("\uFEFF")) {
             text = text.substring(1);
         }
-        String expected = String.join(",", required);
-        List<String> columns = new ArrayList<>();
-        List<Row> rows = new ArrayList<>();
-        int headerLine;
         try (CSVParser parser = CSVParser.parse(text, FORMAT)) {
-            List<String> header = parser.getHeaderNames();
-            headerLine = (int) parser.getCurrentLineNumber();
-            if (header.isEmpty()) {
-                throw new InputException(file, 0, 0, "empty file (expected a header line: " + expected + ")");
-            }
-            for (int i = 0; i < header.size(); i++) {
-                String name = header.get(i).trim().toLowerCase(Locale.ROOT);
-                if (name.isEmpty()) {
-                    throw new InputException(file, headerLine, i + 1, "header: column " + (i + 1) + " has no name");
-                }
-                if (columns.contains(name)) {
-                    throw new InputException(file, headerLine, i + 1, "header: column '" + name
-                            + "' appears twice");
-                }
-                if (!required.contains(name) && !optional.contains(name)) {
-                    List<String> known = new ArrayList<>(required);
-                    known.addAll(optional);
-                    throw new InputException(file, headerLine, i + 1, "header: unknown column '" + name
-                            + "' (known columns: " + String.join(", ", known) + ")");
-                }
-                columns.add(name);
-            }
-            for (String r : required) {
-                if (!columns.contains(r)) {
-                    throw new InputException(file, headerLine, 0, "header: missing column '" + r
-                            + "' (required columns: " + expected + ")");
-                }
-            }
+            int headerLine = (int) parser.getCurrentLineNumber();
+            List<String> columns = header(file, parser.getHeaderNames(), headerLine, required, optional);
+            Cells rows = new Cells(columns.size(), 16);
             for (CSVRecord record : parser) {
                 String[] values = record.values();
                 int newlines = 0;
                 for (String v : values) {
-                    newlines += (int) v.chars().filter(c -> c == '\n').count();
+                    if (v.indexOf('\n') >= 0) {
+                        newlines += newlines(v);
+                    }
                 }
-                int line = (int) parser.getCurrentLineNumber() - newlines;
-                if (values.length != columns.size()) {
-                    // a row fault, not a file fault: it can be skipped
-                    rows.add(new Row(line, new String[0], "row has " + values.length
-                            + (values.length == 1 ? " value" : " values") + ", the header has "
-                            + columns.size() + " columns"));
-                } else {
-                    rows.add(new Row(line, values, null));
-                }
+                rows.add(values, values.length, (int) parser.getCurrentLineNumber() - newlines);
             }
+            return table(file, headerLine, columns, rows);
         } catch (IOException | UncheckedIOException | IllegalStateException | IllegalArgumentException e) {
             throw new InputException(file, "malformed CSV (" + e.getMessage() + ")", e);
         }
-        if (rows.isEmpty()) {
+    }
+
+    /** Checks the header and returns its column names in lower case. */
+    private static List<String> header(String file, List<String> header, int headerLine, List<String> required,
+                                       List<String> optional) {
+        String expected = String.join(",", required);
+        if (header.isEmpty()) {
+            throw new InputException(file, 0, 0, "empty file (expected a header line: " + expected + ")");
+        }
+        List<String> columns = new ArrayList<>();
+        for (int i = 0; i < header.size(); i++) {
+            String name = header.get(i).trim().toLowerCase(Locale.ROOT);
+            if (name.isEmpty()) {
+                throw new InputException(file, headerLine, i + 1, "header: column " + (i + 1) + " has no name");
+            }
+            if (columns.contains(name)) {
+                throw new InputException(file, headerLine, i + 1, "header: column '" + name
+                        + "' appears twice");
+            }
+            if (!required.contains(name) && !optional.contains(name)) {
+                List<String> known = new ArrayList<>(required);
+                known.addAll(optional);
+                throw new InputException(file, headerLine, i + 1, "header: unknown column '" + name
+                        + "' (known columns: " + String.join(", ", known) + ")");
+            }
+            columns.add(name);
+        }
+        for (String r : required) {
+            if (!columns.contains(r)) {
+                throw new InputException(file, headerLine, 0, "header: missing column '" + r
+                        + "' (required columns: " + expected + ")");
+            }
+        }
+        return List.copyOf(columns);
+    }
+
+    private static CsvTable table(String file, int headerLine, List<String> columns, Cells rows) {
+        if (rows.size == 0) {
             throw new InputException(file, 0, 0, "no data rows (only a header"
                     + (headerLine > 0 ? " on line " + headerLine : "") + ")");
         }
         return new CsvTable(file, headerLine, columns, rows);
     }
 
+    /**
+     * Strict UTF-8 decoding. {@code new String(bytes, UTF_8)} is much faster than a
+     * {@code CharsetDecoder} but replaces malformed input by U+FFFD; so when its result holds a
+     * U+FFFD the bytes are decoded again strictly, which throws if they are malformed (a
+     * U+FFFD written in the file is valid and kept). Both give the same text for valid UTF-8.
+     */
+    static String decode(byte[] bytes) throws CharacterCodingException {
+        String text = new String(bytes, StandardCharsets.UTF_8);
+        if (text.indexOf('\uFFFD') >= 0) {
+            return StandardCharsets.UTF_8.newDecoder().decode(ByteBuffer.wrap(bytes)).toString();
+        }
+        return text;
+    }
+
+    private static int newlines(String s) {
+        int n = 0;
+        for (int i = s.indexOf('\n'); i >= 0; i = s.indexOf('\n', i + 1)) {
+            n++;
+        }
+        return n;
+    }
+
+    /** @return number of data rows, &ge; 1 */
+    int size() {
+        return size;
+    }
+
+    /** @return 1-based line where data row {@code r} starts */
+    int line(int r) {
+        return lines[r];
+    }
+
+    /**
+     * @return the fault of data row {@code r} (its number of values differs from the header; then
+     *     it has no values), or null
+     */
+    String fault(int r) {
+        return faults == null ? null : faults[r];
+    }
+
+    /** @return the column's index in the header, or -1 if the file has no such column */
+    int column(String name) {
+        return columns.indexOf(name);
+    }
+
     boolean has(String column) {
-        return index.containsKey(column);
+        return columns.contains(column);
     }
 
     /** @return 1-based column number */
     int number(String column) {
-        return index.get(column) + 1;
+        return columns.indexOf(column) + 1;
     }
 
-    String value(Row row, String column) {
-        return row.values()[index.get(column)];
+    /** @return the trimmed value of row {@code r} in column index {@code c}; row without fault */
+    String value(int r, int c) {
+        return cells[r * width + c];
     }
 
+    /** @return the trimmed value of row {@code r} in the named column, which the file has */
+    String value(int r, String column) {
+        return value(r, columns.indexOf(column));
+    }
 }

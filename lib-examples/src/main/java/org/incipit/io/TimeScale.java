@@ -1,9 +1,13 @@
 package org.incipit.io;
 
+import com.fasterxml.jackson.core.io.NumberInput;
 import java.time.LocalDate;
 import java.time.format.DateTimeParseException;
 import java.time.temporal.ChronoUnit;
+import java.util.Arrays;
 import java.util.List;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.FutureTask;
 import java.util.regex.Pattern;
 
 /** Decides whether a file's time columns hold day numbers or dates, and parses them. */
@@ -14,70 +18,189 @@ final class TimeScale {
 
     final boolean dates;
     final LocalDate origin; // null for day numbers without a given origin
+    // For a file of day numbers: per time column (in the order given to of()) and row, the value
+    // read during the scan, or NaN where the scan could not read one; null for dates.
+    private final double[][] read;
 
-    private TimeScale(boolean dates, LocalDate origin) {
+    private TimeScale(boolean dates, LocalDate origin, double[][] read) {
         this.dates = dates;
         this.origin = origin;
+        this.read = read;
     }
+
+    /** Files of at least this many data rows have their time columns scanned in parallel. */
+    static final int PARALLEL_ROWS = 20_000;
 
     /**
      * Scans the time columns. Faults of the file (a column mixing kinds, columns of different
-     * kinds) raise an {@link InputException}; unparsable values are left to {@link #parse}.
+     * kinds) raise an {@link InputException}; unparsable values are left to {@link #parse}. Day
+     * numbers are read during the scan (see {@link #time}), so that each is checked and parsed
+     * once. Large files have their columns scanned in parallel (each column on its own; faults
+     * are then reported exactly as a scan column by column would report them).
      */
     static TimeScale of(CsvTable table, List<String> timeColumns, ReadOptions options) {
+        return of(table, timeColumns, options, PARALLEL_ROWS);
+    }
+
+    /** As {@link #of(CsvTable, List, ReadOptions)}, in parallel from {@code parallelRows} rows on. */
+    static TimeScale of(CsvTable table, List<String> timeColumns, ReadOptions options, int parallelRows) {
+        int n = timeColumns.size();
+        ColumnScan[] scans = new ColumnScan[n];
+        if (n > 1 && table.size() >= parallelRows && Runtime.getRuntime().availableProcessors() > 1) {
+            FutureTask<Void> rest = new FutureTask<>(() -> {
+                for (int k = 1; k < n; k++) {
+                    scans[k] = ColumnScan.of(table, timeColumns.get(k));
+                }
+                return null;
+            });
+            Thread helper = new Thread(rest, "incipit-time-scan");
+            helper.setDaemon(true);
+            helper.start();
+            scans[0] = ColumnScan.of(table, timeColumns.get(0));
+            await(rest);
+        } else {
+            for (int k = 0; k < n; k++) {
+                scans[k] = ColumnScan.of(table, timeColumns.get(k));
+            }
+        }
         Boolean fileDates = null;
         String firstColumn = null;
         int firstLine = 0;
         LocalDate earliest = null;
-        for (String column : timeColumns) {
-            if (!table.has(column)) {
-                continue;
+        double[][] read = new double[n][];
+        for (int k = 0; k < n; k++) {
+            ColumnScan scan = scans[k];
+            if (scan == null || scan.dates == null) {
+                continue; // no such column, or nothing readable in it
             }
-            Boolean columnDates = null;
-            int columnLine = 0;
-            for (CsvTable.Row row : table.rows) {
-                if (row.fault() != null) {
-                    continue;
-                }
-                String v = table.value(row, column);
-                boolean isDate = isDate(v);
-                boolean isNumber = isNumber(v);
-                if (!isDate && !isNumber) {
-                    continue;
-                }
-                if (columnDates == null) {
-                    columnDates = isDate;
-                    columnLine = row.line();
-                    if (fileDates == null) {
-                        fileDates = isDate;
-                        firstColumn = column;
-                        firstLine = row.line();
-                    } else if (fileDates != isDate) {
-                        throw new InputException(table.file, row.line(), table.number(column),
-                                "column '" + column + "' holds " + kind(isDate) + " but column '"
-                                        + firstColumn + "' holds " + kind(fileDates) + " (line " + firstLine
-                                        + "); use one kind for all time columns");
+            String column = timeColumns.get(k);
+            int line = table.line(scan.first);
+            if (fileDates == null) {
+                fileDates = scan.dates;
+                firstColumn = column;
+                firstLine = line;
+            } else if (!fileDates.equals(scan.dates)) {
+                throw new InputException(table.file, line, table.number(column),
+                        "column '" + column + "' holds " + kind(scan.dates) + " but column '"
+                                + firstColumn + "' holds " + kind(fileDates) + " (line " + firstLine
+                                + "); use one kind for all time columns");
+            }
+            if (scan.mixed >= 0) {
+                throw new InputException(table.file, table.line(scan.mixed), table.number(column),
+                        "column '" + column + "' mixes day numbers and dates: line " + line
+                                + " has " + kind1(scan.dates) + ", this line has " + kind1(!scan.dates));
+            }
+            if (scan.earliest != null && (earliest == null || scan.earliest.isBefore(earliest))) {
+                earliest = scan.earliest;
+            }
+            read[k] = scan.values;
+        }
+        boolean dates = Boolean.TRUE.equals(fileDates);
+        LocalDate origin = options.origin() != null ? options.origin() : (dates ? earliest : null);
+        return new TimeScale(dates, origin, dates ? null : read);
+    }
+
+    /** The task's result, once it has run; its exception if it threw one. */
+    static <T> T await(FutureTask<T> task) {
+        boolean interrupted = false;
+        try {
+            while (true) {
+                try {
+                    return task.get();
+                } catch (InterruptedException e) {
+                    interrupted = true; // the scan is short: finish it, then keep the interrupt
+                } catch (ExecutionException e) {
+                    if (e.getCause() instanceof RuntimeException r) {
+                        throw r;
                     }
-                } else if (columnDates != isDate) {
-                    throw new InputException(table.file, row.line(), table.number(column),
-                            "column '" + column + "' mixes day numbers and dates: line " + columnLine
-                                    + " has " + kind1(columnDates) + ", this line has " + kind1(isDate));
+                    if (e.getCause() instanceof Error err) {
+                        throw err;
+                    }
+                    throw new IllegalStateException(e.getCause());
+                }
+            }
+        } finally {
+            if (interrupted) {
+                Thread.currentThread().interrupt();
+            }
+        }
+    }
+
+    /**
+     * One time column read in row order up to its first value of the other kind: the kind of
+     * its first readable value (null if none), that row, the first row of the other kind (or
+     * -1), the earliest date, and the day numbers read (NaN where none was).
+     */
+    private static final class ColumnScan {
+        Boolean dates;
+        int first = -1;
+        int mixed = -1;
+        LocalDate earliest;
+        double[] values;
+
+        static ColumnScan of(CsvTable table, String column) {
+            if (!table.has(column)) {
+                return null;
+            }
+            ColumnScan s = new ColumnScan();
+            int c = table.column(column);
+            double[] values = new double[table.size()];
+            Arrays.fill(values, Double.NaN);
+            s.values = values;
+            for (int r = 0; r < table.size(); r++) {
+                if (table.fault(r) != null) {
+                    continue;
+                }
+                String v = table.value(r, c);
+                boolean isDate = isDate(v);
+                if (!isDate && !isNumber(v)) {
+                    continue;
+                }
+                if (s.dates == null) {
+                    s.dates = isDate;
+                    s.first = r;
+                } else if (s.dates != isDate) {
+                    s.mixed = r;
+                    break;
                 }
                 if (isDate) {
                     try {
                         LocalDate d = LocalDate.parse(v);
-                        if (earliest == null || d.isBefore(earliest)) {
-                            earliest = d;
+                        if (s.earliest == null || d.isBefore(s.earliest)) {
+                            s.earliest = d;
                         }
                     } catch (DateTimeParseException e) {
                         // reported as a row fault by parse()
                     }
+                } else {
+                    double x = decimal(v);
+                    if (Double.isFinite(x)) {
+                        values[r] = x; // else left to parse(), which reports it
+                    }
                 }
             }
+            return s;
         }
-        boolean dates = Boolean.TRUE.equals(fileDates);
-        LocalDate origin = options.origin() != null ? options.origin() : (dates ? earliest : null);
-        return new TimeScale(dates, origin);
+    }
+
+    /**
+     * The time of data row {@code r} in a time column, as {@link #parse} gives it, without
+     * reading the text again where the scan of {@link #of} has read it.
+     *
+     * @param k      the column's index in the list given to {@link #of}
+     * @param r      the data row
+     * @param column the column's name
+     * @param text   the row's value in that column
+     * @return the time in days; a {@link RowFault} if the value is empty or unreadable
+     */
+    double time(int k, int r, String column, String text) {
+        if (read != null && read[k] != null) {
+            double x = read[k][r];
+            if (x == x) { // not NaN
+                return x;
+            }
+        }
+        return parse(column, text);
     }
 
     /**
@@ -139,6 +262,17 @@ final class TimeScale {
         return i == n;
     }
 
+    /**
+     * The double nearest to a decimal that {@link #isNumber} accepts, as
+     * {@link Double#parseDouble} gives it (both round correctly), by jackson-core's fast
+     * parser (Lemire 2021, "Number parsing at a gigabyte per second"): the JDK 17 parser falls
+     * back to big-integer arithmetic for inputs of more than 15 significant digits, which made
+     * it the largest single cost of reading a file of full-precision day numbers.
+     */
+    static double decimal(String text) {
+        return NumberInput.parseDouble(text, true);
+    }
+
     private static boolean digit(char c) {
         return c >= '0' && c <= '9';
     }
@@ -171,7 +305,7 @@ final class TimeScale {
             throw new RowFault(column, "column '" + column + "': cannot read '" + text
                     + "' as a day number or a date (yyyy-MM-dd)");
         }
-        double x = Double.parseDouble(text);
+        double x = decimal(text);
         if (!Double.isFinite(x)) {
             throw new RowFault(column, "column '" + column + "': day number '" + text + "' is out of range");
         }
@@ -210,7 +344,7 @@ final class TimeScale {
                 throw new IllegalArgumentException(what + " '" + text
                         + "' is a day number, but the file's times are dates; give it as a date (yyyy-MM-dd)");
             }
-            double x = Double.parseDouble(t);
+            double x = decimal(t);
             if (Double.isFinite(x)) {
                 return x;
             }

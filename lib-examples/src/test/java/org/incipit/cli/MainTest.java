@@ -243,6 +243,28 @@ class MainTest {
     }
 
     @Test
+    void everySubcommandIsRegisteredUnderItsOwnNameInOrder() {
+        CommandLine cl = Main.commandLine(new PrintWriter(new StringWriter()), new PrintWriter(new StringWriter()));
+        assertEquals(Main.SUBCOMMANDS, java.util.List.copyOf(cl.getSubcommands().keySet()));
+        for (String name : Main.SUBCOMMANDS) {
+            assertEquals(name, Main.subcommand(name).getClass().getAnnotation(Command.class).name());
+        }
+    }
+
+    @Test
+    void aRunOfOneSubcommandReportsLikeTheFullCommandLine() {
+        // Main.run registers only the subcommand named first; help and errors must not change
+        Run one = run("intervals", "--level", "x");
+        StringWriter out = new StringWriter();
+        StringWriter err = new StringWriter();
+        int code = Main.commandLine(new PrintWriter(out, true), new PrintWriter(err, true))
+                .execute("intervals", "--level", "x");
+        assertEquals(new Run(code, out.toString(), err.toString()), one);
+        assertEquals(ExitCode.BAD_INPUT, one.code());
+        assertTrue(one.err().contains("Try 'incipit intervals --help'"), one.err());
+    }
+
+    @Test
     void estimationFailureExitsWithThreeAndBugsWithOne() {
         StringWriter out = new StringWriter();
         StringWriter err = new StringWriter();

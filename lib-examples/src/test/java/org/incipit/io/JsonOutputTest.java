@@ -4,7 +4,14 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.SerializationFeature;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.math.BigDecimal;
+import java.math.BigInteger;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -83,5 +90,35 @@ class JsonOutputTest {
         x = assertThrows(IllegalArgumentException.class,
                 () -> new FitSummary("gamma", Map.of("shape", 1.0), e, e, 0, 0, 0, true));
         assertEquals("n must be >= 1, was 0", x.getMessage());
+    }
+
+    /** Every node type the results use, nested, with empty containers and awkward values. */
+    private static ObjectNode everyKind() {
+        ObjectNode o = JsonOutput.object();
+        o.put("text", "tab\t quote\" backslash\\ newline\n é \u2003 \u0001");
+        o.put("int", -7).put("long", 1L << 40).put("float", 0.1f).put("true", true).put("false", false);
+        o.put("double", 0.1).put("negativeZero", -0.0).put("tiny", 4.9e-324).put("huge", 1.7976931348623157e308)
+                .put("whole", 3.0).put("fraction", 14.240254484426233);
+        o.put("bigInteger", new BigInteger("123456789012345678901234567890"));
+        o.put("bigDecimal", new BigDecimal("1.50"));
+        o.putNull("null");
+        o.putObject("emptyObject");
+        o.putArray("emptyArray");
+        ArrayNode a = o.putArray("array");
+        a.add(1).add(2.5).add("x").addNull().addObject().put("inner", JsonOutput.estimate(
+                new Estimate(1, Double.NEGATIVE_INFINITY, 2, 0.9, "wald")).toString());
+        a.addArray().add(JsonOutput.estimate(new Estimate(1, 0.5, Double.POSITIVE_INFINITY, 0.95, "profile")));
+        o.set("fits", JsonOutput.fits(List.of(gamma()), "gamma"));
+        return o;
+    }
+
+    @Test
+    void writesTheSameTextAsAnIndentingObjectMapper() throws JsonProcessingException {
+        // reference: jackson-databind's ObjectMapper with INDENT_OUTPUT, which wrote results before
+        ObjectMapper mapper = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+        for (JsonNode n : List.of(everyKind(), JsonOutput.fit(gamma()), JsonOutput.object(),
+                JsonOutput.object().putArray("a"))) {
+            assertEquals(mapper.writeValueAsString(n) + System.lineSeparator(), JsonOutput.write(n));
+        }
     }
 }

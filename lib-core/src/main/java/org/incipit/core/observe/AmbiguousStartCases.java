@@ -4,7 +4,6 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.Collections;
 import java.util.HashMap;
-import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 
@@ -44,6 +43,7 @@ public final class AmbiguousStartCases {
     private final int[] categories;
     private final int[] totals;
     private final List<String> categoryNames;
+    private final List<String> idList; // an unmodifiable view of ids, which never change
 
     private AmbiguousStartCases(String[] ids, double[] ends, int[] offsets, double[] starts,
                                 int[] categories, int[] totals, List<String> categoryNames) {
@@ -54,6 +54,7 @@ public final class AmbiguousStartCases {
         this.categories = categories;
         this.totals = totals;
         this.categoryNames = categoryNames;
+        this.idList = Collections.unmodifiableList(Arrays.asList(ids));
     }
 
     /** @return a new, empty builder */
@@ -104,7 +105,7 @@ public final class AmbiguousStartCases {
 
     /** @return the case ids in case order (unmodifiable) */
     public List<String> ids() {
-        return List.of(ids);
+        return idList;
     }
 
     /**
@@ -201,24 +202,34 @@ public final class AmbiguousStartCases {
      */
     public static final class Builder {
 
+        /** A case so far: its index in first-appearance order and what its rows must agree on. */
         private static final class Acc {
-            final String id;
+            final int index;
             final double end;
             final int total;
-            final Rows.Doubles starts = new Rows.Doubles();
-            final Rows.Ints categories = new Rows.Ints();
+            int count;
 
-            Acc(String id, double end, int total) {
-                this.id = id;
+            Acc(int index, double end, int total) {
+                this.index = index;
                 this.end = end;
                 this.total = total;
             }
         }
 
-        private final Map<String, Acc> cases = new LinkedHashMap<>();
+        // Flat storage in the order added (one entry per candidate, no object per candidate);
+        // build() groups the candidates by case with a counting sort.
+        private final Map<String, Acc> cases = new HashMap<>();
+        private final List<String> ids = new ArrayList<>();
+        private final Rows.Doubles ends = new Rows.Doubles();
+        private final Rows.Ints totals = new Rows.Ints();
+        private final Rows.Ints candidateCase = new Rows.Ints();
+        private final Rows.Doubles candidateStart = new Rows.Doubles();
+        private final Rows.Ints candidateCategory = new Rows.Ints();
         private final Map<String, Integer> categoryCodes = new HashMap<>();
         private final List<String> categoryNames = new ArrayList<>();
         private Boolean withCategories; // null until the first candidate
+        private String lastId; // the case of the last candidate added, and its entry
+        private Acc last;
 
         private Builder() {
         }
@@ -241,58 +252,77 @@ public final class AmbiguousStartCases {
         public Builder addCandidate(String caseId, double end, double start, String category,
                                     int totalExposures) {
             Rows.id(caseId, "case");
-            String what = "case " + Rows.quote(caseId);
-            Rows.finite("end", end, what);
-            Rows.finite("start", start, what);
+            // the checks run once per row of large files: the message is built only on a fault
+            if (!Double.isFinite(end)) {
+                Rows.finite("end", end, what(caseId));
+            }
+            if (!Double.isFinite(start)) {
+                Rows.finite("start", start, what(caseId));
+            }
             if (start > end) {
-                throw new ObservationException("start", what + ": start " + start
+                throw new ObservationException("start", what(caseId) + ": start " + start
                         + " is after end " + end + " (a start must not be after the end)");
             }
             if (totalExposures != UNKNOWN_TOTAL && totalExposures < 1) {
-                throw new ObservationException("totalExposures", what
+                throw new ObservationException("totalExposures", what(caseId)
                         + ": total number of exposures must be >= 1 (or unknown), was " + totalExposures);
             }
             if (category != null && category.isBlank()) {
-                throw new ObservationException("category", what + ": category must not be blank");
+                throw new ObservationException("category", what(caseId) + ": category must not be blank");
             }
             if (withCategories != null && withCategories != (category != null)) {
-                throw new ObservationException("category", what + (category == null
+                throw new ObservationException("category", what(caseId) + (category == null
                         ? ": candidate has no category, but earlier candidates have one"
                         : ": candidate has category '" + category + "', but earlier candidates have none"));
             }
-            Acc acc = cases.get(caseId);
+            Acc acc = caseId.equals(lastId) ? last : cases.get(caseId);
             if (acc != null) {
                 if (Double.compare(acc.end, end) != 0) {
-                    throw new ObservationException("end", what + ": end " + end
+                    throw new ObservationException("end", what(caseId) + ": end " + end
                             + " disagrees with end " + acc.end + " given for the case before");
                 }
                 if (acc.total != totalExposures) {
-                    throw new ObservationException("totalExposures", what + ": total number of exposures "
+                    throw new ObservationException("totalExposures", what(caseId) + ": total number of exposures "
                             + totalText(totalExposures) + " disagrees with " + totalText(acc.total)
                             + " given for the case before");
                 }
             }
-            int count = acc == null ? 1 : acc.starts.size() + 1;
+            int count = acc == null ? 1 : acc.count + 1;
             if (totalExposures != UNKNOWN_TOTAL && count > totalExposures) {
-                throw new ObservationException("totalExposures", what + " has " + count
+                throw new ObservationException("totalExposures", what(caseId) + " has " + count
                         + " candidate starts, more than its total number of exposures " + totalExposures);
             }
             // all checks passed: now change state
             if (acc == null) {
-                acc = new Acc(caseId, end, totalExposures);
+                acc = new Acc(ids.size(), end, totalExposures);
                 cases.put(caseId, acc);
+                ids.add(caseId);
+                ends.add(end);
+                totals.add(totalExposures);
             }
             withCategories = category != null;
             int code = NO_CATEGORY;
             if (category != null) {
-                code = categoryCodes.computeIfAbsent(category, c -> {
-                    categoryNames.add(c);
-                    return categoryNames.size() - 1;
-                });
+                Integer known = categoryCodes.get(category);
+                if (known == null) {
+                    code = categoryNames.size();
+                    categoryNames.add(category);
+                    categoryCodes.put(category, code);
+                } else {
+                    code = known;
+                }
             }
-            acc.starts.add(start);
-            acc.categories.add(code);
+            acc.count = count;
+            lastId = caseId;
+            last = acc;
+            candidateCase.add(acc.index);
+            candidateStart.add(start);
+            candidateCategory.add(code);
             return this;
+        }
+
+        private static String what(String caseId) {
+            return "case " + Rows.quote(caseId);
         }
 
         /**
@@ -355,13 +385,24 @@ public final class AmbiguousStartCases {
             }
             Boolean savedFlag = withCategories;
             int savedNames = categoryNames.size();
+            int savedCases = ids.size();
+            int savedCandidates = candidateCase.size();
             try {
                 for (int k = 0; k < starts.length; k++) {
                     addCandidate(caseId, end, starts[k], categories == null ? null : categories[k],
                             totalExposures);
                 }
             } catch (ObservationException e) {
+                // the case is new, so it and its candidates are the last entries: cut them off
                 cases.remove(caseId);
+                lastId = null;
+                last = null;
+                ids.subList(savedCases, ids.size()).clear();
+                ends.truncate(savedCases);
+                totals.truncate(savedCases);
+                candidateCase.truncate(savedCandidates);
+                candidateStart.truncate(savedCandidates);
+                candidateCategory.truncate(savedCandidates);
                 withCategories = savedFlag;
                 while (categoryNames.size() > savedNames) {
                     categoryCodes.remove(categoryNames.remove(categoryNames.size() - 1));
@@ -384,41 +425,64 @@ public final class AmbiguousStartCases {
             if (cases.isEmpty()) {
                 throw new ObservationException("id", "no cases (at least one case is required)");
             }
-            int n = cases.size();
-            String[] ids = new String[n];
-            double[] ends = new double[n];
-            int[] totals = new int[n];
+            int n = ids.size();
+            int total = candidateCase.size();
             int[] offsets = new int[n + 1];
-            int total = 0;
-            for (Acc acc : cases.values()) {
-                total += acc.starts.size();
+            for (int c = 0; c < total; c++) {
+                offsets[candidateCase.get(c) + 1]++;
             }
+            for (int i = 0; i < n; i++) {
+                offsets[i + 1] += offsets[i];
+            }
+            // counting sort by case: stable, so each case's candidates stay in the order added
             double[] starts = new double[total];
             int[] cats = new int[total];
-            int i = 0;
-            int j = 0;
-            for (Acc acc : cases.values()) {
-                ids[i] = acc.id;
-                ends[i] = acc.end;
-                totals[i] = acc.total;
-                offsets[i] = j;
-                int m = acc.starts.size();
-                Integer[] order = new Integer[m];
-                for (int k = 0; k < m; k++) {
-                    order[k] = k;
-                }
-                // stable sort: ties keep insertion order
-                Arrays.sort(order, (a, b) -> Double.compare(acc.starts.get(a), acc.starts.get(b)));
-                for (int k = 0; k < m; k++) {
-                    starts[j] = acc.starts.get(order[k]);
-                    cats[j] = acc.categories.get(order[k]);
-                    j++;
-                }
-                i++;
+            int[] next = Arrays.copyOf(offsets, n);
+            for (int c = 0; c < total; c++) {
+                int j = next[candidateCase.get(c)]++;
+                starts[j] = candidateStart.get(c);
+                cats[j] = candidateCategory.get(c);
             }
-            offsets[n] = j;
-            return new AmbiguousStartCases(ids, ends, offsets, starts, cats, totals,
-                    Collections.unmodifiableList(new ArrayList<>(categoryNames)));
+            for (int i = 0; i < n; i++) {
+                sortByStart(starts, cats, offsets[i], offsets[i + 1]);
+            }
+            return new AmbiguousStartCases(ids.toArray(new String[0]), ends.toArray(), offsets, starts, cats,
+                    totals.toArray(), Collections.unmodifiableList(new ArrayList<>(categoryNames)));
+        }
+
+        /**
+         * Sorts {@code starts[from, to)} ascending, moving {@code cats} along; stable (ties keep
+         * the order added). Cases have few candidates and files are often in order already, so
+         * an insertion sort, with a stable library sort for long cases.
+         */
+        private static void sortByStart(double[] starts, int[] cats, int from, int to) {
+            int m = to - from;
+            if (m <= 32) {
+                for (int k = from + 1; k < to; k++) {
+                    double x = starts[k];
+                    int code = cats[k];
+                    int j = k - 1;
+                    while (j >= from && Double.compare(starts[j], x) > 0) {
+                        starts[j + 1] = starts[j];
+                        cats[j + 1] = cats[j];
+                        j--;
+                    }
+                    starts[j + 1] = x;
+                    cats[j + 1] = code;
+                }
+                return;
+            }
+            Integer[] order = new Integer[m];
+            for (int k = 0; k < m; k++) {
+                order[k] = k;
+            }
+            Arrays.sort(order, (a, b) -> Double.compare(starts[from + a], starts[from + b])); // stable
+            double[] s = Arrays.copyOfRange(starts, from, to);
+            int[] c = Arrays.copyOfRange(cats, from, to);
+            for (int k = 0; k < m; k++) {
+                starts[from + k] = s[order[k]];
+                cats[from + k] = c[order[k]];
+            }
         }
 
         private static String totalText(int m) {

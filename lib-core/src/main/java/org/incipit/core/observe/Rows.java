@@ -50,6 +50,11 @@ final class Rows {
         double[] toArray() {
             return Arrays.copyOf(a, n);
         }
+
+        /** Keeps the first {@code size} elements, {@code 0 <= size <= size()}. */
+        void truncate(int size) {
+            n = size;
+        }
     }
 
     /** Growable int array. */
@@ -74,6 +79,11 @@ final class Rows {
 
         int[] toArray() {
             return Arrays.copyOf(a, n);
+        }
+
+        /** Keeps the first {@code size} elements, {@code 0 <= size <= size()}. */
+        void truncate(int size) {
+            n = size;
         }
     }
 

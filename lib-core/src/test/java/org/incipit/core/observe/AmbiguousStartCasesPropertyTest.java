@@ -17,7 +17,9 @@ import org.junit.jupiter.params.provider.MethodSource;
 /**
  * Seeded random data sets (100, bounded): candidates added interleaved across cases come out
  * grouped by case in order of first appearance, sorted by start within each case, with every
- * (start, category) pair kept.
+ * (start, category) pair kept; and the order within a case is exactly that of a stable sort by
+ * start (the reference is {@link List#sort}, documented as stable), also for cases with many
+ * candidates.
  */
 class AmbiguousStartCasesPropertyTest {
 
@@ -82,6 +84,49 @@ class AmbiguousStartCasesPropertyTest {
             Collections.sort(expected);
             Collections.sort(actual);
             assertEquals(expected, actual);
+        }
+    }
+
+    @ParameterizedTest
+    @MethodSource("seeds")
+    void ordersEachCaseLikeAStableSortByStart(long seed) {
+        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
+        int cases = 1 + rng.nextInt(6);
+        record Row(String id, double end, double start, int category) {
+        }
+        List<Row> rows = new ArrayList<>();
+        for (int c = 0; c < cases; c++) {
+            double end = 20 + 10 * rng.nextDouble();
+            // up to 80 candidates: both the short-case and the long-case sort are reached
+            int m = 1 + rng.nextInt(rng.nextBoolean() ? 8 : 80);
+            for (int k = 0; k < m; k++) {
+                double start = rng.nextInt(3) == 0 ? rng.nextInt(20) : end * rng.nextDouble(); // many ties
+                rows.add(new Row("c" + c, end, start, rng.nextInt(4)));
+            }
+        }
+        Collections.shuffle(rows, new java.util.Random(seed));
+        String[] names = {"a", "b", "c", "d"};
+        AmbiguousStartCases.Builder b = AmbiguousStartCases.builder();
+        for (Row r : rows) {
+            b.addCandidate(r.id(), r.end(), r.start(), names[r.category()], AmbiguousStartCases.UNKNOWN_TOTAL);
+        }
+        AmbiguousStartCases a = b.build();
+        for (int i = 0; i < a.caseCount(); i++) {
+            String id = a.id(i);
+            List<Row> expected = new ArrayList<>();
+            for (Row r : rows) {
+                if (r.id().equals(id)) {
+                    expected.add(r);
+                }
+            }
+            expected.sort(java.util.Comparator.comparingDouble(Row::start));
+            assertEquals(expected.size(), a.candidateCount(i));
+            for (int k = 0; k < expected.size(); k++) {
+                int j = a.offset(i) + k;
+                assertEquals(expected.get(k).start(), a.start(j), "start " + k + " of case " + id);
+                assertEquals(names[expected.get(k).category()], a.categoryNames().get(a.categoryCode(j)),
+                        "category " + k + " of case " + id + " (ties keep the order added)");
+            }
         }
     }
 }

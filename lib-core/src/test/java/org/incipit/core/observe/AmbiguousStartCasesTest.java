@@ -144,6 +144,23 @@ class AmbiguousStartCasesTest {
     }
 
     @Test
+    void failedAddCaseAfterOtherCasesRemovesOnlyItsOwnCandidates() {
+        AmbiguousStartCases.Builder b = AmbiguousStartCases.builder()
+                .addCandidate("A", 10, 4, "home", -1)
+                .addCandidate("B", 8, 1, "home", -1)
+                .addCandidate("A", 10, 2, "home", -1);
+        rejects("start", "case 'C': start 13.0 is after end 12.0 (a start must not be after the end)",
+                () -> b.addCase("C", 12, new double[] {1, 3, 13}, new String[] {"work", "home", "work"}, -1));
+        assertEquals(2, b.caseCount());
+        AmbiguousStartCases c = b.addCandidate("A", 10, 3, "home", -1).build();
+        assertEquals(List.of("A", "B"), c.ids());
+        assertArrayEquals(new int[] {0, 3, 4}, c.offsets());
+        assertArrayEquals(new double[] {2, 3, 4, 1}, c.starts());
+        assertEquals(List.of("home"), c.categoryNames(), "the category 'work' of the failed case is gone");
+        assertEquals(-1, c.indexOf("C"));
+    }
+
+    @Test
     void rejectsDuplicateCaseInAddCase() {
         AmbiguousStartCases.Builder b = AmbiguousStartCases.builder().addCase("A", 10, 1);
         rejects("id", "case 'A' was added before (case ids must be unique)", () -> b.addCase("A", 10, 2));
