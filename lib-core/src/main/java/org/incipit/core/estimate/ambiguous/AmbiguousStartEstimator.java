@@ -323,6 +323,10 @@ public final class AmbiguousStartEstimator {
         if (data.categories < 1) {
             throw new IllegalArgumentException("data must have >= 1 transmission category");
         }
+        if (data.n < 2) {
+            throw new EstimationException("maximum likelihood of a two-parameter family needs at least 2 cases, the"
+                    + " data have " + data.n + " (with one case the likelihood has no maximum)");
+        }
         int k = data.categories;
         List<String> labels = categoryLabels != null ? categoryLabels : defaultLabels(k);
         MaximumLikelihoodFit fit = maximumLikelihood(data, family, history, labels);
@@ -513,7 +517,14 @@ public final class AmbiguousStartEstimator {
     /** Profile or delta-method (log scale) interval, or the uninformative interval. */
     private static Estimate derived(MaximumLikelihoodFit fit, boolean interior, ProfileIntervals pi,
                                     ToDoubleFunction<double[]> f, double[] nat, double level) {
-        double v = f.applyAsDouble(nat);
+        double v;
+        try {
+            v = f.applyAsDouble(nat);
+        } catch (IllegalArgumentException | ArithmeticException e) {
+            // e.g. a quantile root search failing at extreme parameters: no estimate, not bad input
+            throw new EstimationException("derived quantity of H cannot be computed at the estimate "
+                    + java.util.Arrays.toString(nat) + ": " + e.getMessage(), e);
+        }
         if (!Double.isFinite(v)) {
             throw new EstimationException("derived quantity of H is not finite at the estimate " + java.util.Arrays.toString(nat));
         }

@@ -111,4 +111,20 @@ class PublicApiTest {
         assertEquals(-867.2172549324043, f.logLikelihood(), 1e-6);
         assertTrue(f.fit().profile("p[household]", 0.95).contains(f.transmission().get(0).estimate()));
     }
+
+    /**
+     * Data with no maximum are an estimation failure, not bad input (common practice: one
+     * observation cannot fix two parameters; with identical durations the likelihood grows
+     * without bound as the shape grows).
+     */
+    @Test
+    void dataWithoutAMaximumFailAsEstimation() {
+        AmbiguousStartCases one = AmbiguousStartCases.builder().addCase("A", 10, 3).build();
+        org.incipit.core.EstimationException e = assertThrows(org.incipit.core.EstimationException.class,
+                () -> AmbiguousStartEstimator.fit(one, DelayFamilies.GAMMA, ExposureHistory.open()));
+        assertTrue(e.getMessage().contains("at least 2 cases"), e.getMessage());
+        AmbiguousStartCases same = AmbiguousStartCases.builder().addCase("A", 10, 3).addCase("B", 10, 3).build();
+        assertThrows(org.incipit.core.EstimationException.class,
+                () -> AmbiguousStartEstimator.fit(same, DelayFamilies.GAMMA, ExposureHistory.open()));
+    }
 }
