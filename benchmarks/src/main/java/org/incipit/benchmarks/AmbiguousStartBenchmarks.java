@@ -80,10 +80,39 @@ public class AmbiguousStartBenchmarks {
         return hessian[0];
     }
 
-    /** Full gamma fit: maximisation and observed information, no intervals. */
+    /**
+     * Full gamma fit: maximisation and observed information, no intervals, on cases whose flat
+     * arrays were prepared once (the estimator keeps them per cases object).
+     */
     @Benchmark
     public MaximumLikelihoodFit fitGamma() {
         return AmbiguousStartEstimator.maximumLikelihood(data, DelayFamilies.GAMMA, ExposureHistory.open());
+    }
+
+    /** A new cases object (same data) for every call of {@link #fitGammaFreshCases}; copying is not timed. */
+    @State(Scope.Thread)
+    public static class FreshCases {
+        AmbiguousStartCases cases;
+
+        @Setup(org.openjdk.jmh.annotations.Level.Invocation)
+        public void copy(AmbiguousStartBenchmarks b) {
+            AmbiguousStartCases.Builder builder = AmbiguousStartCases.builder();
+            AmbiguousStartCases d = b.data;
+            for (int i = 0; i < d.caseCount(); i++) {
+                double[] s = new double[d.candidateCount(i)];
+                for (int j = 0; j < s.length; j++) {
+                    s[j] = d.start(d.offset(i) + j);
+                }
+                builder.addCase(d.id(i), d.end(i), s);
+            }
+            cases = builder.build();
+        }
+    }
+
+    /** As {@link #fitGamma}, including the one-time preparation of the flat arrays. */
+    @Benchmark
+    public MaximumLikelihoodFit fitGammaFreshCases(FreshCases fresh) {
+        return AmbiguousStartEstimator.maximumLikelihood(fresh.cases, DelayFamilies.GAMMA, ExposureHistory.open());
     }
 
     /** 1,000 nonparametric bootstrap refits of n = 200 (gamma, open) on the common pool. */

@@ -36,6 +36,10 @@ import org.slf4j.LoggerFactory;
  * instead from the maximum over every 8th case (found the same way) and runs to relative
  * gradient 1e-12, falling back to the moment starts if that does not converge.
  *
+ * <p><b>Prepared data.</b> The first call on an {@link AmbiguousStartCases} object turns it into
+ * flat arrays (log-durations, durations, categories; about 20 bytes per candidate) that later
+ * calls on the same object reuse for as long as it is reachable (held weakly).
+ *
  * <p><b>Intervals</b> ({@link Options#intervals()}): by default ({@link Intervals#AUTOMATIC}),
  * below {@value #PROFILE_BELOW_CASES} cases profile-likelihood intervals for the family
  * parameters and the mean, sd and quantiles of H ({@link ProfileIntervals}: each profile point

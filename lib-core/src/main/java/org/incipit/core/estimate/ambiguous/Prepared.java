@@ -233,8 +233,29 @@ final class Prepared {
         return new Prepared(n, k, off, logD, dur, cat, recorded, tot, ids == null ? null : ids.clone(), order);
     }
 
-    /** Adapter from the observation type. */
+    /**
+     * Prepared arrays of each observation object, computed once: the cases are immutable, and
+     * analysts fit the same cases several times (families, rules, bootstrap). Weak keys (identity:
+     * AmbiguousStartCases does not override equals), so an entry lives as long as its cases do;
+     * it holds no reference to them.
+     */
+    private static final java.util.Map<org.incipit.core.observe.AmbiguousStartCases, Prepared> CACHE =
+            java.util.Collections.synchronizedMap(new java.util.WeakHashMap<>());
+
+    /**
+     * Adapter from the observation type: prepared once per cases object and then reused (two
+     * threads asking at once may both prepare; either result is the same).
+     */
     static Prepared from(org.incipit.core.observe.AmbiguousStartCases c) {
+        Prepared p = CACHE.get(c);
+        if (p == null) {
+            p = prepare(c);
+            CACHE.put(c, p);
+        }
+        return p;
+    }
+
+    private static Prepared prepare(org.incipit.core.observe.AmbiguousStartCases c) {
         int n = c.caseCount();
         int k = Math.max(1, c.categoryNames().size());
         int[] totals = null;

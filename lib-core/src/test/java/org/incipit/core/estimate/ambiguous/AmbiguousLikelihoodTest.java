@@ -334,4 +334,18 @@ class AmbiguousLikelihoodTest {
         }
         return Prepared.of(e, off, flat.stream().mapToDouble(Double::doubleValue).toArray(), null, 1, null, null);
     }
+
+    /** The prepared arrays of a cases object are built once and reused; another object gets its own. */
+    @Test
+    void preparedOncePerCasesObject() {
+        org.incipit.core.observe.AmbiguousStartCases a = org.incipit.core.observe.AmbiguousStartCases.builder()
+                .addCase("A", 10, 3, 5).addCase("B", 8, 2).build();
+        org.incipit.core.observe.AmbiguousStartCases b = org.incipit.core.observe.AmbiguousStartCases.builder()
+                .addCase("A", 10, 3, 5).addCase("B", 8, 2).build();
+        Prepared pa = Prepared.from(a);
+        assertTrue(pa == Prepared.from(a));
+        assertTrue(pa != Prepared.from(b));
+        assertEquals(3, pa.candidates());
+        assertEquals(java.util.Arrays.toString(pa.logD), java.util.Arrays.toString(Prepared.from(b).logD));
+    }
 }
