@@ -111,4 +111,45 @@ class FastExpTest {
             assertTrue(rel <= Math.ulp(x) + 2 * Math.ulp(1.0), "k = " + k + ": " + rel);
         }
     }
+
+    /**
+     * The tables written out in FastExp, derived again in 60-digit decimal arithmetic (common
+     * practice): 2^(1/N) by Newton on y^N = 2, T_j = y^j rounded to nearest (BigDecimal's
+     * doubleValue rounds correctly), tau_j = (y^j &minus; T_j) / T_j, and ln2/N = ln y by the series
+     * ln y = 2 atanh((y &minus; 1)/(y + 1)), split after 24 significant bits. Bit for bit.
+     */
+    @Test
+    void tablesAreTheSixtyDigitValues() {
+        int n = FastExp.N;
+        MathContext mc = new MathContext(60);
+        BigDecimal two = BigDecimal.valueOf(2);
+        BigDecimal y = new BigDecimal(Math.pow(2, 1.0 / n));
+        for (int it = 0; it < 6; it++) {
+            BigDecimal yn1 = y.pow(n - 1, mc);
+            BigDecimal f = yn1.multiply(y, mc).subtract(two, mc);
+            y = y.subtract(f.divide(yn1.multiply(BigDecimal.valueOf(n), mc), mc), mc);
+        }
+        BigDecimal t = BigDecimal.ONE;
+        for (int j = 0; j < n; j++) {
+            double hi = t.doubleValue();
+            assertEquals(Double.doubleToRawLongBits(hi), FastExp.SCALE_BITS[j], "T_" + j);
+            BigDecimal h = new BigDecimal(hi);
+            assertEquals(t.subtract(h, mc).divide(h, mc).doubleValue(), FastExp.TAIL[j], 0.0, "tau_" + j);
+            t = t.multiply(y, mc);
+        }
+        BigDecimal z = y.subtract(BigDecimal.ONE, mc).divide(y.add(BigDecimal.ONE, mc), mc);
+        BigDecimal z2 = z.multiply(z, mc);
+        BigDecimal term = z;
+        BigDecimal sum = BigDecimal.ZERO;
+        for (int i = 1; i < 80; i += 2) {
+            sum = sum.add(term.divide(BigDecimal.valueOf(i), mc), mc);
+            term = term.multiply(z2, mc);
+        }
+        BigDecimal ln2N = sum.multiply(two, mc);
+        double hi = Double.longBitsToDouble(Double.doubleToRawLongBits(ln2N.doubleValue()) & 0xFFFFFFFFE0000000L);
+        assertEquals(hi, FastExp.LN2_N_HI, 0.0);
+        assertEquals(ln2N.subtract(new BigDecimal(hi), mc).doubleValue(), FastExp.LN2_N_LO, 0.0);
+        // and against the JDK: ln2/N to double precision
+        assertEquals(Math.log(2) / n, FastExp.LN2_N_HI + FastExp.LN2_N_LO, Math.ulp(Math.log(2) / n));
+    }
 }
