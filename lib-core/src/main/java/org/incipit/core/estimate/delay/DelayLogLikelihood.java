@@ -177,6 +177,21 @@ final class DelayLogLikelihood implements LogLikelihood {
         out[3] = hss;
     }
 
+    /**
+     * log Phi(w), and phi(w)/Phi(w) into mills[0], from one erfc / erfcx value (erfcx below
+     * w = -5, where Phi underflows: log Phi = log(erfcx/2) - w^2/2, phi/Phi = sqrt(2/pi)/erfcx).
+     */
+    private static double logPhiWithMills(double w, double[] mills) {
+        if (w < -5) {
+            double e = Erfcx.value(-w / SQRT2);
+            mills[0] = SQRT_2_OVER_PI / e;
+            return Math.log(0.5 * e) - 0.5 * w * w;
+        }
+        double c = 0.5 * Erfc.value(-w / SQRT2);
+        mills[0] = Math.exp(-0.5 * w * w - HALF_LOG_2PI) / c;
+        return Math.log(c);
+    }
+
     private static double millsInverse(double w) {
         if (w < -5) {
             return SQRT_2_OVER_PI / Erfcx.value(-w / SQRT2);
@@ -383,19 +398,11 @@ final class DelayLogLikelihood implements LogLikelihood {
             g0 += (densLog - mu * densTotal) / (sigma * sigma);
             g1 += -densTotal / sigma + q / (sigma * sigma * sigma);
         }
+        double[] mills = new double[1];
         for (int i = 0; i < cdfLogX.length; i++) {
             double w = (cdfLogX[i] - mu) / sigma;
-            double lp;
-            double lambda;
-            if (w < -5) {
-                double e = Erfcx.value(-w / SQRT2);
-                lp = Math.log(0.5 * e) - 0.5 * w * w;
-                lambda = SQRT_2_OVER_PI / e;
-            } else {
-                double c = 0.5 * Erfc.value(-w / SQRT2);
-                lp = Math.log(c);
-                lambda = Math.exp(-0.5 * w * w - HALF_LOG_2PI) / c;
-            }
+            double lp = logPhiWithMills(w, mills);
+            double lambda = mills[0];
             sum += cdfW[i] * lp;
             double r = cdfW[i] * lambda / sigma;
             g0 -= r;
@@ -403,17 +410,8 @@ final class DelayLogLikelihood implements LogLikelihood {
         }
         for (int i = 0; i < survLogX.length; i++) {
             double w = -(survLogX[i] - mu) / sigma; // log S(x) = log Phi(-w(x))
-            double lp;
-            double lambda;
-            if (w < -5) {
-                double e = Erfcx.value(-w / SQRT2);
-                lp = Math.log(0.5 * e) - 0.5 * w * w;
-                lambda = SQRT_2_OVER_PI / e;
-            } else {
-                double c = 0.5 * Erfc.value(-w / SQRT2);
-                lp = Math.log(c);
-                lambda = Math.exp(-0.5 * w * w - HALF_LOG_2PI) / c;
-            }
+            double lp = logPhiWithMills(w, mills);
+            double lambda = mills[0];
             sum += survW[i] * lp;
             double r = survW[i] * lambda / sigma;
             g0 += r;
