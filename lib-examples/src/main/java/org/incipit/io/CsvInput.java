@@ -60,10 +60,13 @@ public final class CsvInput {
         CsvTable t = CsvTable.read(path, INTERVAL_COLUMNS, INTERVAL_OPTIONAL);
         TimeScale scale = TimeScale.of(t, List.of("end", "start"), options);
         AmbiguousStartCases.Builder b = AmbiguousStartCases.builder();
-        record Seen(String id, int line, String endText, double end, String totalText, int total) {
+        // what a case's later rows must agree with, and where it was first seen (for messages)
+        record Seen(String id, int row, int line, double end, int total) {
         }
         Map<String, Seen> seen = new HashMap<>(Math.min(t.size(), 1 << 22) * 4 / 3 + 1); // no rehashing
         Seen[] last = new Seen[1]; // the case of the last row read: files often list a case's rows together
+        int[] idRow = {-1}; // the last row whose case id was made a string, and that string
+        String[] idText = new String[1];
         int caseColumn = t.column("case");
         int endColumn = t.column("end");
         int startColumn = t.column("start");
@@ -71,40 +74,47 @@ public final class CsvInput {
         int totalColumn = t.column("exposures_total");
         List<SkippedRow> skipped = readRows(t, options, Map.of("id", "case", "end", "end", "start", "start",
                 "category", "kind", "totalExposures", "exposures_total"), r -> {
-            String id = required(t, r, caseColumn, "case");
-            String endText = t.value(r, endColumn);
-            String startText = t.value(r, startColumn);
-            double end = scale.time(0, r, "end", endText);
-            double start = scale.time(1, r, "start", startText);
+            // the texts of the row are made strings only where needed: this runs once per row of
+            // large files, and messages (built only for a bad row) read them again
+            String id;
+            if (idRow[0] >= 0 && t.same(r, idRow[0], caseColumn)) {
+                id = idText[0];
+            } else {
+                id = required(t, r, caseColumn, "case");
+                idRow[0] = r;
+                idText[0] = id;
+            }
+            double end = scale.time(0, r, "end");
+            double start = scale.time(1, r, "start");
             String kind = null;
             if (kindColumn >= 0) {
                 kind = required(t, r, kindColumn, "kind");
             }
-            String totalText = totalColumn >= 0 ? t.value(r, totalColumn) : "";
             int total = AmbiguousStartCases.UNKNOWN_TOTAL;
-            if (!totalText.isEmpty()) {
+            if (totalColumn >= 0 && !t.empty(r, totalColumn)) {
+                String totalText = t.value(r, totalColumn);
                 total = count(totalText, "exposures_total");
                 if (total < 1) {
                     throw new RowFault("exposures_total", "column 'exposures_total': must be >= 1, was " + totalText);
                 }
             }
-            // messages are built only for a bad row: this runs once per row of large files
             Seen before = last[0] != null && last[0].id().equals(id) ? last[0] : seen.get(id);
             if (before != null && Double.compare(before.end(), end) != 0) {
-                throw new RowFault("end", what(id) + ": end '" + endText + "' disagrees with end '"
-                        + before.endText() + "' on line " + before.line());
+                throw new RowFault("end", what(id) + ": end '" + t.value(r, endColumn) + "' disagrees with end '"
+                        + t.value(before.row(), endColumn) + "' on line " + before.line());
             }
             if (before != null && before.total() != total) {
-                throw new RowFault("exposures_total", what(id) + ": exposures_total " + shown(totalText)
-                        + " disagrees with " + shown(before.totalText()) + " on line " + before.line());
+                throw new RowFault("exposures_total", what(id) + ": exposures_total "
+                        + shown(t.value(r, totalColumn)) + " disagrees with "
+                        + shown(t.value(before.row(), totalColumn)) + " on line " + before.line());
             }
             if (start > end) {
-                throw new RowFault("start", what(id) + ": start '" + startText + "' is after end '"
-                        + endText + "'");
+                throw new RowFault("start", what(id) + ": start '" + t.value(r, startColumn) + "' is after end '"
+                        + t.value(r, endColumn) + "'");
             }
             b.addCandidate(id, end, start, kind, total);
             if (before == null) {
-                before = new Seen(id, t.line(r), endText, end, totalText, total);
+                before = new Seen(id, r, t.line(r), end, total);
                 seen.put(id, before);
             }
             last[0] = before;
@@ -137,7 +147,7 @@ public final class CsvInput {
             String id = required(t, r, "case");
             String primaryText = t.value(r, "primary");
             String secondaryText = t.value(r, "secondary");
-            double primary = scale.time(0, r, "primary", primaryText);
+            double primary = scale.time(0, r, "primary");
             boolean daily = scale.dates;
             if (t.has("daily") && !t.value(r, "daily").isEmpty()) {
                 daily = bool(t.value(r, "daily"), "daily");
@@ -150,7 +160,7 @@ public final class CsvInput {
                 b.addCensored(id, primary, daily);
                 return;
             }
-            double secondary = scale.time(1, r, "secondary", secondaryText);
+            double secondary = scale.time(1, r, "secondary");
             if (secondary < primary) {
                 throw new RowFault("secondary", what(id) + ": secondary '" + secondaryText
                         + "' is before primary '" + primaryText + "'");
@@ -179,9 +189,9 @@ public final class CsvInput {
             String fromText = t.value(r, "exposure_from");
             String toText = t.value(r, "exposure_to");
             String onsetText = t.value(r, "onset");
-            double from = scale.time(0, r, "exposure_from", fromText);
-            double to = scale.time(1, r, "exposure_to", toText);
-            double onset = scale.time(2, r, "onset", onsetText);
+            double from = scale.time(0, r, "exposure_from");
+            double to = scale.time(1, r, "exposure_to");
+            double onset = scale.time(2, r, "onset");
             if (to < from) {
                 throw new RowFault("exposure_to", what(id) + ": exposure_to '" + toText
                         + "' is before exposure_from '" + fromText + "'");

@@ -18,8 +18,8 @@ import org.apache.commons.csv.CSVRecord;
 /**
  * A CSV file read into memory: header and data rows with their line numbers. Rows are
  * addressed by index {@code 0 <= r < size()} and columns by their index in the header
- * ({@link #column(String)}); the values are kept in one flat array (row-major), so that a file
- * of many rows costs one array of strings and no object per row. Plain ASCII text without
+ * ({@link #column(String)}); the values are kept as ranges of one byte array (see
+ * {@link Cells}), so that a file of many rows costs no object per row or value. Plain ASCII text without
  * quotes is read by {@link PlainCsv}, other text by commons-csv; both give the same rows.
  */
 final class CsvTable {
@@ -35,20 +35,39 @@ final class CsvTable {
             .build();
 
     /**
-     * Growing storage of data rows: values row-major in one flat array ({@code width} per row),
-     * a line per row, and a fault for a row whose number of values differs from the header
-     * (its values are then not kept).
+     * Growing storage of data rows. The values are kept as UTF-8 bytes: each value is a range
+     * {@code [start, end)} of one byte array, the ranges row-major ({@code width} per row), so
+     * that a file of a few hundred thousand rows costs no object per value; a value is made a
+     * string only when asked for. The plain scan ({@link PlainCsv}) points the ranges into the
+     * file's own bytes; rows from commons-csv are encoded into an array of their own. Also a
+     * line per row, and a fault for a row whose number of values differs from the header (its
+     * values are then not kept).
      */
     static final class Cells {
         final int width;
         int size;
-        String[] values;
+        byte[] text;
+        private final boolean ownText; // whether add(String[]...) may write into text
+        private int textLength;        // used part of an own text
+        int[] bounds;                  // start and end of each value, 2 * width per row
         int[] lines;
         String[] faults; // null while no row has a fault
 
+        /** Storage for values that are ranges of {@code text} (which is not copied). */
+        Cells(int width, int capacity, byte[] text) {
+            this(width, capacity, text, false);
+        }
+
+        /** Storage for values given as strings, encoded into an array of its own. */
         Cells(int width, int capacity) {
+            this(width, capacity, new byte[64], true);
+        }
+
+        private Cells(int width, int capacity, byte[] text, boolean ownText) {
             this.width = width;
-            this.values = new String[capacity * width];
+            this.text = text;
+            this.ownText = ownText;
+            this.bounds = new int[2 * capacity * width];
             this.lines = new int[capacity];
         }
 
@@ -56,7 +75,7 @@ final class CsvTable {
             if (size == lines.length) {
                 int capacity = Math.max(16, 2 * size);
                 lines = Arrays.copyOf(lines, capacity);
-                values = Arrays.copyOf(values, capacity * width);
+                bounds = Arrays.copyOf(bounds, 2 * capacity * width);
                 faults = faults == null ? null : Arrays.copyOf(faults, capacity);
             }
         }
@@ -74,15 +93,21 @@ final class CsvTable {
             return false;
         }
 
-        /** Appends the rows of {@code more}, their line numbers shifted by {@code lines}. */
+        /**
+         * Appends the rows of {@code more}, whose values are ranges of the same text, their
+         * line numbers shifted by {@code lines}.
+         */
         void append(Cells more, int lines) {
+            if (more.text != text || ownText) {
+                throw new IllegalArgumentException("the rows appended must point into the same text");
+            }
             int n = size + more.size;
             if (n > this.lines.length) {
                 this.lines = Arrays.copyOf(this.lines, n);
-                values = Arrays.copyOf(values, n * width);
+                bounds = Arrays.copyOf(bounds, 2 * n * width);
                 faults = faults == null ? null : Arrays.copyOf(faults, n);
             }
-            System.arraycopy(more.values, 0, values, size * width, more.size * width);
+            System.arraycopy(more.bounds, 0, bounds, 2 * size * width, 2 * more.size * width);
             for (int r = 0; r < more.size; r++) {
                 this.lines[size + r] = more.lines[r] + lines;
             }
@@ -95,14 +120,46 @@ final class CsvTable {
             size = n;
         }
 
-        /** Adds the row of the first {@code count} values of {@code row}, which starts on {@code line}. */
-        void add(String[] row, int count, int line) {
+        /**
+         * Adds the row of the first {@code count} values whose ranges of the text are in
+         * {@code rowBounds} (start and end of each), which starts on {@code line}.
+         */
+        void add(int[] rowBounds, int count, int line) {
             grow();
             lines[size] = line;
             if (fits(count)) {
-                System.arraycopy(row, 0, values, size * width, width);
+                System.arraycopy(rowBounds, 0, bounds, 2 * size * width, 2 * width);
             }
             size++;
+        }
+
+        /** Adds the row of the first {@code count} values of {@code row}, which starts on {@code line}. */
+        void add(String[] row, int count, int line) {
+            if (!ownText) {
+                throw new IllegalStateException("these rows point into a text of their own");
+            }
+            grow();
+            lines[size] = line;
+            if (fits(count)) {
+                int at = 2 * size * width;
+                for (int k = 0; k < width; k++) {
+                    byte[] v = row[k].getBytes(StandardCharsets.UTF_8);
+                    if (textLength + v.length > text.length) {
+                        text = Arrays.copyOf(text, Math.max(2 * text.length, textLength + v.length));
+                    }
+                    System.arraycopy(v, 0, text, textLength, v.length);
+                    bounds[at + 2 * k] = textLength;
+                    textLength += v.length;
+                    bounds[at + 2 * k + 1] = textLength;
+                }
+            }
+            size++;
+        }
+
+        /** @return the value of row {@code r} (without a fault) in column {@code c} */
+        String value(int r, int c) {
+            int i = 2 * (r * width + c);
+            return new String(text, bounds[i], bounds[i + 1] - bounds[i], StandardCharsets.UTF_8);
         }
     }
 
@@ -111,9 +168,7 @@ final class CsvTable {
     final List<String> columns;  // lower case, header order
     private final int width;
     private final int size;
-    private final String[] cells;  // row-major, width per row; a faulty row's cells are null
-    private final int[] lines;
-    private final String[] faults; // null if no row has a fault
+    private final Cells cells;
 
     private CsvTable(String file, int headerLine, List<String> columns, Cells rows) {
         this.file = file;
@@ -121,9 +176,7 @@ final class CsvTable {
         this.columns = columns;
         this.width = columns.size();
         this.size = rows.size;
-        this.cells = rows.values;
-        this.lines = rows.lines;
-        this.faults = rows.faults;
+        this.cells = rows;
     }
 
     /**
@@ -244,7 +297,7 @@ final class CsvTable {
 
     /** @return 1-based line where data row {@code r} starts */
     int line(int r) {
-        return lines[r];
+        return cells.lines[r];
     }
 
     /**
@@ -252,7 +305,7 @@ final class CsvTable {
      *     it has no values), or null
      */
     String fault(int r) {
-        return faults == null ? null : faults[r];
+        return cells.faults == null ? null : cells.faults[r];
     }
 
     /** @return the column's index in the header, or -1 if the file has no such column */
@@ -271,7 +324,36 @@ final class CsvTable {
 
     /** @return the trimmed value of row {@code r} in column index {@code c}; row without fault */
     String value(int r, int c) {
-        return cells[r * width + c];
+        return cells.value(r, c);
+    }
+
+    /** @return the UTF-8 text that the values are ranges of (see {@link #start}); not to be changed */
+    byte[] text() {
+        return cells.text;
+    }
+
+    /** @return where the value of row {@code r} (without a fault) in column {@code c} starts in {@link #text} */
+    int start(int r, int c) {
+        return cells.bounds[2 * (r * width + c)];
+    }
+
+    /** @return where the value of row {@code r} (without a fault) in column {@code c} ends in {@link #text} */
+    int end(int r, int c) {
+        return cells.bounds[2 * (r * width + c) + 1];
+    }
+
+    /** @return whether the value of row {@code r} (without a fault) in column {@code c} is empty */
+    boolean empty(int r, int c) {
+        int i = 2 * (r * width + c);
+        return cells.bounds[i] == cells.bounds[i + 1];
+    }
+
+    /** @return whether rows {@code r} and {@code q} (without faults) have the same value in column {@code c} */
+    boolean same(int r, int q, int c) {
+        int i = 2 * (r * width + c);
+        int j = 2 * (q * width + c);
+        int[] b = cells.bounds;
+        return Arrays.equals(cells.text, b[i], b[i + 1], cells.text, b[j], b[j + 1]);
     }
 
     /** @return the trimmed value of row {@code r} in the named column, which the file has */

@@ -27,7 +27,7 @@ final class PlainCsv {
     private int pos;
     private int line; // line terminators passed so far
     private boolean declined;
-    private String[] values = new String[8];
+    private int[] bounds = new int[16]; // start and end of each value of the current record
     private int count; // values of the current record
 
     /** Files with at least this many bytes of records are scanned in two halves in parallel. */
@@ -60,7 +60,12 @@ final class PlainCsv {
         if (!s.nextRecord()) {
             return s.declined ? null : new Result(List.of(), 0, null);
         }
-        List<String> header = List.of(Arrays.copyOf(s.values, s.count));
+        String[] names = new String[s.count];
+        for (int k = 0; k < s.count; k++) {
+            names[k] = new String(text, s.bounds[2 * k], s.bounds[2 * k + 1] - s.bounds[2 * k],
+                    StandardCharsets.ISO_8859_1);
+        }
+        List<String> header = List.of(names);
         int headerLine = s.line;
         int width = header.size();
         int split = split(text, s.pos, parallelBytes);
@@ -98,9 +103,9 @@ final class PlainCsv {
 
     /** Reads the records of the rest of the part (of about {@code bytes} bytes). */
     private CsvTable.Cells records(int width, int bytes) {
-        CsvTable.Cells cells = new CsvTable.Cells(width, 16 + bytes / (8 * width));
+        CsvTable.Cells cells = new CsvTable.Cells(width, 16 + bytes / (8 * width), text);
         while (nextRecord()) {
-            cells.add(values, count, line);
+            cells.add(bounds, count, line);
         }
         return cells;
     }
@@ -111,7 +116,7 @@ final class PlainCsv {
     }
 
     /**
-     * Reads the next record into {@link #values}, skipping blank and comment lines.
+     * Reads the next record into {@link #bounds}, skipping blank and comment lines.
      *
      * @return false at the end of the text, or if the text is not plain (then {@link #declined})
      */
@@ -145,10 +150,10 @@ final class PlainCsv {
         for (int i = pos; ; i++) {
             byte c = i < length ? text[i] : (byte) '\n';
             if (c == ',' || c == '\n' || c == '\r') {
-                if (count == values.length) {
-                    values = Arrays.copyOf(values, 2 * count);
+                if (2 * count == bounds.length) {
+                    bounds = Arrays.copyOf(bounds, 4 * count);
                 }
-                values[count++] = value(from, i);
+                value(from, i);
                 if (c == ',') {
                     from = i + 1;
                     continue;
@@ -169,13 +174,16 @@ final class PlainCsv {
         return text[i] == '\r' && i + 1 < length && text[i + 1] == '\n' ? i + 2 : i + 1;
     }
 
-    private String value(int from, int to) {
+    /** Records {@code text[from, to)} without the spaces and tabs around it as the next value. */
+    private void value(int from, int to) {
         while (from < to && (text[from] == ' ' || text[from] == '\t')) {
             from++;
         }
         while (to > from && (text[to - 1] == ' ' || text[to - 1] == '\t')) {
             to--;
         }
-        return new String(text, from, to - from, StandardCharsets.ISO_8859_1);
+        bounds[2 * count] = from;
+        bounds[2 * count + 1] = to;
+        count++;
     }
 }

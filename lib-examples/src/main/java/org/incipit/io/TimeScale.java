@@ -1,6 +1,7 @@
 package org.incipit.io;
 
-import com.fasterxml.jackson.core.io.NumberInput;
+import ch.randelshofer.fastdoubleparser.JavaDoubleParser;
+import java.nio.charset.StandardCharsets;
 import java.time.LocalDate;
 import java.time.format.DateTimeParseException;
 import java.time.temporal.ChronoUnit;
@@ -18,11 +19,13 @@ final class TimeScale {
 
     final boolean dates;
     final LocalDate origin; // null for day numbers without a given origin
+    private final CsvTable table;
     // For a file of day numbers: per time column (in the order given to of()) and row, the value
     // read during the scan, or NaN where the scan could not read one; null for dates.
     private final double[][] read;
 
-    private TimeScale(boolean dates, LocalDate origin, double[][] read) {
+    private TimeScale(CsvTable table, boolean dates, LocalDate origin, double[][] read) {
+        this.table = table;
         this.dates = dates;
         this.origin = origin;
         this.read = read;
@@ -97,7 +100,7 @@ final class TimeScale {
         }
         boolean dates = Boolean.TRUE.equals(fileDates);
         LocalDate origin = options.origin() != null ? options.origin() : (dates ? earliest : null);
-        return new TimeScale(dates, origin, dates ? null : read);
+        return new TimeScale(table, dates, origin, dates ? null : read);
     }
 
     /** The task's result, once it has run; its exception if it threw one. */
@@ -147,13 +150,15 @@ final class TimeScale {
             double[] values = new double[table.size()];
             Arrays.fill(values, Double.NaN);
             s.values = values;
+            byte[] text = table.text();
             for (int r = 0; r < table.size(); r++) {
                 if (table.fault(r) != null) {
                     continue;
                 }
-                String v = table.value(r, c);
-                boolean isDate = isDate(v);
-                if (!isDate && !isNumber(v)) {
+                int from = table.start(r, c);
+                int to = table.end(r, c);
+                boolean isDate = isDate(text, from, to);
+                if (!isDate && !isNumber(text, from, to)) {
                     continue;
                 }
                 if (s.dates == null) {
@@ -165,7 +170,7 @@ final class TimeScale {
                 }
                 if (isDate) {
                     try {
-                        LocalDate d = LocalDate.parse(v);
+                        LocalDate d = LocalDate.parse(table.value(r, c));
                         if (s.earliest == null || d.isBefore(s.earliest)) {
                             s.earliest = d;
                         }
@@ -173,7 +178,7 @@ final class TimeScale {
                         // reported as a row fault by parse()
                     }
                 } else {
-                    double x = decimal(v);
+                    double x = decimal(text, from, to);
                     if (Double.isFinite(x)) {
                         values[r] = x; // else left to parse(), which reports it
                     }
@@ -188,92 +193,111 @@ final class TimeScale {
      * reading the text again where the scan of {@link #of} has read it.
      *
      * @param k      the column's index in the list given to {@link #of}
-     * @param r      the data row
+     * @param r      the data row, which has no fault of its own
      * @param column the column's name
-     * @param text   the row's value in that column
      * @return the time in days; a {@link RowFault} if the value is empty or unreadable
      */
-    double time(int k, int r, String column, String text) {
+    double time(int k, int r, String column) {
         if (read != null && read[k] != null) {
             double x = read[k][r];
             if (x == x) { // not NaN
                 return x;
             }
         }
-        return parse(column, text);
+        return parse(column, table.value(r, table.column(column)));
+    }
+
+    /** Whether {@code v} matches {@link #DATE}; see {@link #isDate(byte[], int, int)}. */
+    static boolean isDate(String v) {
+        byte[] b = v.getBytes(StandardCharsets.UTF_8);
+        return isDate(b, 0, b.length);
     }
 
     /**
-     * Whether {@code v} matches {@link #DATE} ({@code \\d{4}-\\d{2}-\\d{2}}); a hand-written scan,
-     * because the readers test every time value and a regex per value dominated large files.
+     * Whether the UTF-8 text {@code b[from, to)} matches {@link #DATE}
+     * ({@code \\d{4}-\\d{2}-\\d{2}}); a hand-written scan, because the readers test every time
+     * value and a regex per value dominated large files. (A byte of a non-ASCII character is
+     * never an ASCII digit or sign, so the bytes decide as the characters would.)
      */
-    static boolean isDate(String v) {
-        if (v.length() != 10 || v.charAt(4) != '-' || v.charAt(7) != '-') {
+    static boolean isDate(byte[] b, int from, int to) {
+        if (to - from != 10 || b[from + 4] != '-' || b[from + 7] != '-') {
             return false;
         }
         for (int i = 0; i < 10; i++) {
-            if (i != 4 && i != 7 && !digit(v.charAt(i))) {
+            if (i != 4 && i != 7 && !digit(b[from + i])) {
                 return false;
             }
         }
         return true;
     }
 
+    /** Whether {@code v} matches {@link #NUMBER}; see {@link #isNumber(byte[], int, int)}. */
+    static boolean isNumber(String v) {
+        byte[] b = v.getBytes(StandardCharsets.UTF_8);
+        return isNumber(b, 0, b.length);
+    }
+
     /**
-     * Whether {@code v} matches {@link #NUMBER}
+     * Whether the UTF-8 text {@code b[from, to)} matches {@link #NUMBER}
      * ({@code [-+]?(\\d+(\\.\\d*)?|\\.\\d+)([eE][-+]?\\d+)?}), by a hand-written scan.
      */
-    static boolean isNumber(String v) {
-        int n = v.length();
-        int i = 0;
-        if (i < n && (v.charAt(i) == '-' || v.charAt(i) == '+')) {
+    static boolean isNumber(byte[] b, int from, int to) {
+        int i = from;
+        if (i < to && (b[i] == '-' || b[i] == '+')) {
             i++;
         }
-        int intDigits = 0;
-        while (i < n && digit(v.charAt(i))) {
+        int digitsFrom = i;
+        while (i < to && digit(b[i])) {
             i++;
-            intDigits++;
         }
-        int fracDigits = 0;
-        if (i < n && v.charAt(i) == '.') {
+        int digits = i - digitsFrom;
+        if (i < to && b[i] == '.') {
             i++;
-            while (i < n && digit(v.charAt(i))) {
+            int fractionFrom = i;
+            while (i < to && digit(b[i])) {
                 i++;
-                fracDigits++;
             }
+            digits += i - fractionFrom;
         }
-        if (intDigits == 0 && fracDigits == 0) {
+        if (digits == 0) {
             return false;
         }
-        if (i < n && (v.charAt(i) == 'e' || v.charAt(i) == 'E')) {
+        if (i < to && (b[i] == 'e' || b[i] == 'E')) {
             i++;
-            if (i < n && (v.charAt(i) == '-' || v.charAt(i) == '+')) {
+            if (i < to && (b[i] == '-' || b[i] == '+')) {
                 i++;
             }
-            int expDigits = 0;
-            while (i < n && digit(v.charAt(i))) {
+            int exponentFrom = i;
+            while (i < to && digit(b[i])) {
                 i++;
-                expDigits++;
             }
-            if (expDigits == 0) {
+            if (i == exponentFrom) {
                 return false;
             }
         }
-        return i == n;
+        return i == to;
+    }
+
+    /** The double nearest to a decimal that {@link #isNumber} accepts; see {@link #decimal(byte[], int, int)}. */
+    static double decimal(String text) {
+        byte[] b = text.getBytes(StandardCharsets.UTF_8);
+        return decimal(b, 0, b.length);
     }
 
     /**
-     * The double nearest to a decimal that {@link #isNumber} accepts, as
-     * {@link Double#parseDouble} gives it (both round correctly), by jackson-core's fast
-     * parser (Lemire 2021, "Number parsing at a gigabyte per second"): the JDK 17 parser falls
-     * back to big-integer arithmetic for inputs of more than 15 significant digits, which made
-     * it the largest single cost of reading a file of full-precision day numbers.
+     * The double nearest to the decimal {@code b[from, to)}, which {@link #isNumber} accepts, as
+     * {@link Double#parseDouble} gives it (both round correctly), by the fastdoubleparser
+     * library (Lemire 2021, "Number parsing at a gigabyte per second", Software: Practice and
+     * Experience 51(8)), straight from the file's bytes: the JDK 17 parser falls back to
+     * big-integer arithmetic for inputs of more than 15 significant digits, which made it the
+     * largest single cost of reading a file of full-precision day numbers, and it needs a
+     * string per value.
      */
-    static double decimal(String text) {
-        return NumberInput.parseDouble(text, true);
+    static double decimal(byte[] b, int from, int to) {
+        return JavaDoubleParser.parseDouble(b, from, to - from);
     }
 
-    private static boolean digit(char c) {
+    private static boolean digit(byte c) {
         return c >= '0' && c <= '9';
     }
 

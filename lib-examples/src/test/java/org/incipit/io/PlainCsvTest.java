@@ -82,8 +82,12 @@ class PlainCsvTest {
         CsvTable.Cells c = plain.cells();
         for (int r = 0; c != null && r < c.size; r++) {
             String fault = c.faults == null ? null : c.faults[r];
+            String[] values = new String[c.width];
+            for (int k = 0; fault == null && k < c.width; k++) {
+                values[k] = c.value(r, k);
+            }
             actual.add((fault == null
-                    ? Arrays.toString(Arrays.copyOfRange(c.values, r * c.width, (r + 1) * c.width))
+                    ? Arrays.toString(values)
                     : fault.substring("row has ".length(), fault.indexOf(" value")) + " values")
                     + " line " + c.lines[r]);
         }

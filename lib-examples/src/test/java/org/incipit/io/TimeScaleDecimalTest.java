@@ -3,6 +3,7 @@ package org.incipit.io;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import java.math.BigDecimal;
+import java.nio.charset.StandardCharsets;
 import java.util.stream.Stream;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.apache.commons.rng.simple.RandomSource;
@@ -10,7 +11,8 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.MethodSource;
 
 /**
- * {@link TimeScale#decimal} (jackson-core's fast parser) gives bit for bit the double of
+ * {@link TimeScale#decimal} (the fastdoubleparser library), on a string and on a range of bytes
+ * inside a longer text, gives bit for bit the double of
  * {@link Double#parseDouble} (the reference: the JDK parser, correctly rounded to nearest, ties
  * to even) on the decimals the readers accept. Seeded strings (bounded in number): random
  * digits of 1 to 25 significant figures with random point and exponent, full-precision
@@ -58,5 +60,12 @@ class TimeScaleDecimalTest {
         assertEquals(true, TimeScale.isNumber(s), "the generated string is a decimal the readers accept");
         assertEquals(Double.doubleToRawLongBits(Double.parseDouble(s)), Double.doubleToRawLongBits(TimeScale.decimal(s)),
                 () -> "'" + s + "'");
+        byte[] v = s.getBytes(StandardCharsets.US_ASCII);
+        byte[] text = new byte[v.length + 2];
+        text[0] = '9';
+        System.arraycopy(v, 0, text, 1, v.length);
+        text[v.length + 1] = '9';
+        assertEquals(Double.doubleToRawLongBits(Double.parseDouble(s)),
+                Double.doubleToRawLongBits(TimeScale.decimal(text, 1, v.length + 1)), () -> "in a text: '" + s + "'");
     }
 }

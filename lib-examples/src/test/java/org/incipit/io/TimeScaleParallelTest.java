@@ -94,8 +94,8 @@ class TimeScaleParallelTest {
                 for (int r = 0; r < table.size(); r++) {
                     for (int k = 0; k < COLUMNS.size(); k++) {
                         String v = table.fault(r) != null ? null : table.value(r, COLUMNS.get(k));
-                        if (v != null && TimeScale.isNumber(v) && Double.isFinite(Double.parseDouble(v))) {
-                            assertEquals(Double.parseDouble(v), s.time(k, r, COLUMNS.get(k), v), v);
+                        if (v != null && TimeScale.NUMBER.matcher(v).matches() && Double.isFinite(Double.parseDouble(v))) {
+                            assertEquals(Double.parseDouble(v), s.time(k, r, COLUMNS.get(k)), v);
                         }
                     }
                 }

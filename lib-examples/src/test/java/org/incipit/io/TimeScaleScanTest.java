@@ -2,6 +2,7 @@ package org.incipit.io;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
+import java.nio.charset.StandardCharsets;
 import java.util.stream.Stream;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.apache.commons.rng.simple.RandomSource;
@@ -11,11 +12,15 @@ import org.junit.jupiter.params.provider.MethodSource;
 /**
  * The hand-written scans for day numbers and ISO dates accept exactly the strings that the
  * documented regular expressions accept (the regexes are the reference; seeded strings over an
- * alphabet that exercises every branch, bounded in number).
+ * alphabet that exercises every branch, bounded in number), both as strings and as a range of
+ * UTF-8 bytes inside a longer text (digits on both sides, so that a scan reading past its range
+ * would be caught).
  */
 class TimeScaleScanTest {
 
-    private static final String ALPHABET = "0123456789-+.eE x";
+    // with two non-ASCII characters: an accented letter and an Arabic-Indic digit three, which
+    // java.util.regex's \\d does not match (it means [0-9] unless UNICODE_CHARACTER_CLASS is set)
+    private static final String ALPHABET = "0123456789-+.eE x\u00e9\u0663";
 
     static Stream<String> strings() {
         UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(20261201L);
@@ -49,5 +54,14 @@ class TimeScaleScanTest {
     void scansAgreeWithTheRegularExpressions(String s) {
         assertEquals(TimeScale.NUMBER.matcher(s).matches(), TimeScale.isNumber(s), () -> "number: '" + s + "'");
         assertEquals(TimeScale.DATE.matcher(s).matches(), TimeScale.isDate(s), () -> "date: '" + s + "'");
+        byte[] v = s.getBytes(StandardCharsets.UTF_8);
+        byte[] text = new byte[v.length + 2];
+        text[0] = '7';
+        System.arraycopy(v, 0, text, 1, v.length);
+        text[v.length + 1] = '7';
+        assertEquals(TimeScale.NUMBER.matcher(s).matches(), TimeScale.isNumber(text, 1, v.length + 1),
+                () -> "number in a text: '" + s + "'");
+        assertEquals(TimeScale.DATE.matcher(s).matches(), TimeScale.isDate(text, 1, v.length + 1),
+                () -> "date in a text: '" + s + "'");
     }
 }
