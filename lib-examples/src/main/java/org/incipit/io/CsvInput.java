@@ -59,7 +59,7 @@ public final class CsvInput {
     public static ReadResult<AmbiguousStartCases> intervals(Path path, ReadOptions options) {
         CsvTable t = CsvTable.read(path, INTERVAL_COLUMNS, INTERVAL_OPTIONAL);
         TimeScale scale = TimeScale.of(t, List.of("end", "start"), options);
-        AmbiguousStartCases.Builder b = AmbiguousStartCases.builder();
+        AmbiguousStartCases.Builder b = AmbiguousStartCases.builder(t.size());
         // what a case's later rows must agree with, and where it was first seen (for messages)
         record Seen(String id, int row, int line, double end, int total) {
         }

@@ -59,8 +59,27 @@ public final class AmbiguousStartCases {
 
     /** @return a new, empty builder */
     public static Builder builder() {
-        return new Builder();
+        return new Builder(16);
     }
+
+    /**
+     * A new, empty builder with room for {@code expectedCandidates} candidate starts (and as many
+     * cases) before its storage grows; for readers that know the size of their input. The hint
+     * is not a limit: more candidates may be added.
+     *
+     * @param expectedCandidates expected number of candidate starts, &ge; 0
+     * @return a new, empty builder
+     * @throws IllegalArgumentException if {@code expectedCandidates < 0}
+     */
+    public static Builder builder(int expectedCandidates) {
+        if (expectedCandidates < 0) {
+            throw new IllegalArgumentException("expectedCandidates must be >= 0, was " + expectedCandidates);
+        }
+        return new Builder(Math.min(expectedCandidates, MAX_HINT));
+    }
+
+    /** The largest storage a size hint reserves at once (later growth is by doubling). */
+    private static final int MAX_HINT = 1 << 22;
 
     /** @return number of cases, &ge; 1 */
     public int caseCount() {
@@ -218,20 +237,28 @@ public final class AmbiguousStartCases {
 
         // Flat storage in the order added (one entry per candidate, no object per candidate);
         // build() groups the candidates by case with a counting sort.
-        private final Map<String, Acc> cases = new HashMap<>();
-        private final List<String> ids = new ArrayList<>();
-        private final Rows.Doubles ends = new Rows.Doubles();
-        private final Rows.Ints totals = new Rows.Ints();
-        private final Rows.Ints candidateCase = new Rows.Ints();
-        private final Rows.Doubles candidateStart = new Rows.Doubles();
-        private final Rows.Ints candidateCategory = new Rows.Ints();
+        private final Map<String, Acc> cases;
+        private final List<String> ids;
+        private final Rows.Doubles ends;
+        private final Rows.Ints totals;
+        private final Rows.Ints candidateCase;
+        private final Rows.Doubles candidateStart;
+        private final Rows.Ints candidateCategory;
         private final Map<String, Integer> categoryCodes = new HashMap<>();
         private final List<String> categoryNames = new ArrayList<>();
         private Boolean withCategories; // null until the first candidate
         private String lastId; // the case of the last candidate added, and its entry
         private Acc last;
 
-        private Builder() {
+        /** @param capacity candidates (and cases) to make room for, 0 to 2^22 */
+        private Builder(int capacity) {
+            cases = new HashMap<>(capacity * 4 / 3 + 1); // no rehashing up to capacity cases
+            ids = new ArrayList<>(capacity);
+            ends = new Rows.Doubles(capacity);
+            totals = new Rows.Ints(capacity);
+            candidateCase = new Rows.Ints(capacity);
+            candidateStart = new Rows.Doubles(capacity);
+            candidateCategory = new Rows.Ints(capacity);
         }
 
         /**

@@ -29,8 +29,17 @@ final class Rows {
 
     /** Growable double array. */
     static final class Doubles {
-        private double[] a = new double[16];
+        private double[] a;
         private int n;
+
+        Doubles() {
+            this(16);
+        }
+
+        /** Room for {@code capacity} elements before the storage grows. */
+        Doubles(int capacity) {
+            a = new double[Math.max(16, capacity)];
+        }
 
         void add(double x) {
             if (n == a.length) {
@@ -59,8 +68,17 @@ final class Rows {
 
     /** Growable int array. */
     static final class Ints {
-        private int[] a = new int[16];
+        private int[] a;
         private int n;
+
+        Ints() {
+            this(16);
+        }
+
+        /** Room for {@code capacity} elements before the storage grows. */
+        Ints(int capacity) {
+            a = new int[Math.max(16, capacity)];
+        }
 
         void add(int x) {
             if (n == a.length) {

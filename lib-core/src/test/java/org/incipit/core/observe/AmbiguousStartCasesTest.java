@@ -18,6 +18,15 @@ class AmbiguousStartCasesTest {
     }
 
     @Test
+    void sizeHintMustNotBeNegative() {
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+                () -> AmbiguousStartCases.builder(-1));
+        assertEquals("expectedCandidates must be >= 0, was -1", e.getMessage());
+        AmbiguousStartCases c = AmbiguousStartCases.builder(0).addCandidate("a", 5, 1).addCandidate("a", 5, 2).build();
+        assertEquals(2, c.candidateCount());
+    }
+
+    @Test
     void roundTripSortsCandidatesWithinCaseStablyAndKeepsCaseOrder() {
         AmbiguousStartCases c = AmbiguousStartCases.builder()
                 .addCandidate("B", 20, 15, "work", 4)
