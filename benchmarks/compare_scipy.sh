@@ -12,9 +12,10 @@
 #     python3 benchmarks/scipy_ambiguous_gamma.py whole F OUT.json
 # (read, fit, intervals, JSON), WHOLE_RUNS runs each (default 7), alternating, wall time by
 # date +%s.%N around each run; medians, their ratio, and the two log-likelihoods. The launcher
-# is run once first: it builds the jar if needed, and that first run after a build makes the
-# class-data-sharing archive (lib-examples/target/incipit-app.jsa) that later runs start with,
-# so it is slower and not timed.
+# is run once first: it builds the jar if needed, and that first run after a build writes the
+# list of the classes it loads and, after the command, dumps from it the static class-data-sharing
+# archive (lib-examples/target/incipit-app-static.jsa) that later runs start with, so it is
+# slower and not timed.
 # WHOLE_ONLY=1 runs step (6) alone (after step (1)).
 # The machine is shared: numbers are taken under contention; report them as such (uptime is
 # printed before and after the whole-command runs).
