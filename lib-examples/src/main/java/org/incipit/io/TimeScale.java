@@ -2,6 +2,7 @@ package org.incipit.io;
 
 import ch.randelshofer.fastdoubleparser.JavaDoubleParser;
 import java.nio.charset.StandardCharsets;
+import java.time.DateTimeException;
 import java.time.LocalDate;
 import java.time.format.DateTimeParseException;
 import java.time.temporal.ChronoUnit;
@@ -169,13 +170,9 @@ final class TimeScale {
                     break;
                 }
                 if (isDate) {
-                    try {
-                        LocalDate d = LocalDate.parse(table.value(r, c));
-                        if (s.earliest == null || d.isBefore(s.earliest)) {
-                            s.earliest = d;
-                        }
-                    } catch (DateTimeParseException e) {
-                        // reported as a row fault by parse()
+                    LocalDate d = date(text, from); // null if not a valid date: reported by parse()
+                    if (d != null && (s.earliest == null || d.isBefore(s.earliest))) {
+                        s.earliest = d;
                     }
                 } else {
                     double x = decimal(text, from, to);
@@ -204,7 +201,33 @@ final class TimeScale {
                 return x;
             }
         }
-        return parse(column, table.value(r, table.column(column)));
+        int c = table.column(column);
+        if (dates) {
+            int from = table.start(r, c);
+            if (isDate(table.text(), from, table.end(r, c))) {
+                LocalDate d = date(table.text(), from);
+                if (d != null) {
+                    return d.toEpochDay() - origin.toEpochDay();
+                }
+            }
+        }
+        return parse(column, table.value(r, c));
+    }
+
+    /**
+     * The date {@code b[from, from + 10)}, which {@link #isDate(byte[], int, int)} accepts, as
+     * {@link LocalDate#parse(CharSequence)} reads it (ISO {@code yyyy-MM-dd}, strict: no
+     * 30 February), or null if it is not a valid date.
+     */
+    static LocalDate date(byte[] b, int from) {
+        int year = 1000 * (b[from] - '0') + 100 * (b[from + 1] - '0') + 10 * (b[from + 2] - '0') + (b[from + 3] - '0');
+        int month = 10 * (b[from + 5] - '0') + (b[from + 6] - '0');
+        int day = 10 * (b[from + 8] - '0') + (b[from + 9] - '0');
+        try {
+            return LocalDate.of(year, month, day);
+        } catch (DateTimeException e) {
+            return null;
+        }
     }
 
     /** Whether {@code v} matches {@link #DATE}; see {@link #isDate(byte[], int, int)}. */

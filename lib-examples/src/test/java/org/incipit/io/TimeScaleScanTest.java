@@ -3,6 +3,8 @@ package org.incipit.io;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import java.nio.charset.StandardCharsets;
+import java.time.LocalDate;
+import java.time.format.DateTimeParseException;
 import java.util.stream.Stream;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.apache.commons.rng.simple.RandomSource;
@@ -14,7 +16,8 @@ import org.junit.jupiter.params.provider.MethodSource;
  * documented regular expressions accept (the regexes are the reference; seeded strings over an
  * alphabet that exercises every branch, bounded in number), both as strings and as a range of
  * UTF-8 bytes inside a longer text (digits on both sides, so that a scan reading past its range
- * would be caught).
+ * would be caught); and a date read from the bytes is the one {@link LocalDate#parse} gives, or
+ * none where that throws (e.g. 2023-02-29, month 13, day 00).
  */
 class TimeScaleScanTest {
 
@@ -63,5 +66,14 @@ class TimeScaleScanTest {
                 () -> "number in a text: '" + s + "'");
         assertEquals(TimeScale.DATE.matcher(s).matches(), TimeScale.isDate(text, 1, v.length + 1),
                 () -> "date in a text: '" + s + "'");
+        if (TimeScale.DATE.matcher(s).matches()) {
+            LocalDate expected;
+            try {
+                expected = LocalDate.parse(s); // the JDK's ISO parser is the reference
+            } catch (DateTimeParseException e) {
+                expected = null;
+            }
+            assertEquals(expected, TimeScale.date(text, 1), () -> "date value: '" + s + "'");
+        }
     }
 }
