@@ -57,7 +57,8 @@ class IntervalsReaderPathsTest {
     private record Row(String id, String end, String start) {
     }
 
-    private static List<Row> rows(UniformRandomProvider rng, String[] ids) {
+    private static List<Row> rows(long seed, String... ids) {
+        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
         Map<String, Double> ends = new LinkedHashMap<>();
         List<Row> rows = new ArrayList<>();
         int n = 1 + rng.nextInt(40);
@@ -147,8 +148,7 @@ class IntervalsReaderPathsTest {
     @ParameterizedTest
     @MethodSource("seeds")
     void plainScanAndCommonsCsvGiveTheModelsCases(long seed) throws IOException {
-        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
-        List<Row> rows = rows(rng, new String[] {"c1", "c2", "c3", "k-10", "k-11"});
+        List<Row> rows = rows(seed, "c1", "c2", "c3", "k-10", "k-11");
         Path plain = write("plain.csv", "", rows);
         Path other = write("other.csv", "# r\u00e9sum\u00e9 of the exposures\n", rows);
         assertNotNull(PlainCsv.scan(Files.readAllBytes(plain)), "the first file is read by the plain scan");
@@ -161,8 +161,7 @@ class IntervalsReaderPathsTest {
     @ParameterizedTest
     @MethodSource("seeds")
     void nonAsciiCaseIdsAreReadFromTheirUtf8Bytes(long seed) throws IOException {
-        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
-        List<Row> rows = rows(rng, new String[] {"Zo\u00eb", "\u0663\u0661", "case \u00c5", "c\u00e9", "c\u00e9\u00e9"});
+        List<Row> rows = rows(seed, "Zo\u00eb", "\u0663\u0661", "case \u00c5", "c\u00e9", "c\u00e9\u00e9");
         Path p = write("utf8.csv", "", rows);
         assertEquals(model(rows), read(p, 2));
     }
@@ -170,8 +169,7 @@ class IntervalsReaderPathsTest {
     @ParameterizedTest
     @MethodSource("seeds")
     void sameIdsGiveTheSameStringsAndOrder(long seed) throws IOException {
-        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
-        List<Row> rows = rows(rng, new String[] {"a", "ab", "b", "ba"}); // ids that are prefixes of others
+        List<Row> rows = rows(seed, "a", "ab", "b", "ba"); // ids that are prefixes of others
         Path p = write("ids.csv", "", rows);
         String m = model(rows);
         assertEquals(m, read(p, 2));
