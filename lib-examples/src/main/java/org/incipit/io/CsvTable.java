@@ -44,6 +44,24 @@ final class CsvTable {
      * values are then not kept).
      */
     static final class Cells {
+        /** The most values (or bytes of own text) kept: array lengths stay below the JVM's limit. */
+        static final long MAX_LENGTH = Integer.MAX_VALUE - 16;
+
+        /** Thrown when the rows would need more storage than {@link #MAX_LENGTH}. */
+        static final class TooLarge extends RuntimeException {
+            TooLarge(String what) {
+                super("the file is too large to hold in memory (more than " + MAX_LENGTH + " " + what + ")");
+            }
+        }
+
+        /** {@code n} as an array length, checked against {@link #MAX_LENGTH}. */
+        private static int length(long n, String what) {
+            if (n > MAX_LENGTH) {
+                throw new TooLarge(what);
+            }
+            return (int) n;
+        }
+
         final int width;
         int size;
         byte[] text;
@@ -67,15 +85,15 @@ final class CsvTable {
             this.width = width;
             this.text = text;
             this.ownText = ownText;
-            this.bounds = new int[2 * capacity * width];
+            this.bounds = new int[length(2L * capacity * width, "value bounds")];
             this.lines = new int[capacity];
         }
 
         private void grow() {
             if (size == lines.length) {
-                int capacity = Math.max(16, 2 * size);
+                int capacity = length(Math.max(16, 2L * size), "rows");
+                bounds = Arrays.copyOf(bounds, length(2L * capacity * width, "value bounds"));
                 lines = Arrays.copyOf(lines, capacity);
-                bounds = Arrays.copyOf(bounds, 2 * capacity * width);
                 faults = faults == null ? null : Arrays.copyOf(faults, capacity);
             }
         }
@@ -103,8 +121,8 @@ final class CsvTable {
             }
             int n = size + more.size;
             if (n > this.lines.length) {
+                bounds = Arrays.copyOf(bounds, length(2L * n * width, "value bounds"));
                 this.lines = Arrays.copyOf(this.lines, n);
-                bounds = Arrays.copyOf(bounds, 2 * n * width);
                 faults = faults == null ? null : Arrays.copyOf(faults, n);
             }
             System.arraycopy(more.bounds, 0, bounds, 2 * size * width, 2 * more.size * width);
@@ -145,7 +163,8 @@ final class CsvTable {
                 for (int k = 0; k < width; k++) {
                     byte[] v = row[k].getBytes(StandardCharsets.UTF_8);
                     if (textLength + v.length > text.length) {
-                        text = Arrays.copyOf(text, Math.max(2 * text.length, textLength + v.length));
+                        text = Arrays.copyOf(text, length(Math.max(Math.min(2L * text.length, MAX_LENGTH),
+                                (long) textLength + v.length), "bytes of values"));
                     }
                     System.arraycopy(v, 0, text, textLength, v.length);
                     bounds[at + 2 * k] = textLength;
@@ -192,6 +211,14 @@ final class CsvTable {
             throw new InputException(file, "cannot read the file (" + e.getClass().getSimpleName() + ": "
                     + e.getMessage() + ")", e);
         }
+        try {
+            return read(file, bytes, required, optional);
+        } catch (Cells.TooLarge e) {
+            throw new InputException(file, 0, 0, e.getMessage());
+        }
+    }
+
+    private static CsvTable read(String file, byte[] bytes, List<String> required, List<String> optional) {
         PlainCsv.Result plain = PlainCsv.scan(bytes);
         if (plain != null) {
             List<String> columns = header(file, plain.header(), plain.headerLine(), required, optional);
