@@ -1,6 +1,5 @@
 package org.incipit.core.study;
 
-import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.Executor;
@@ -18,17 +17,17 @@ import org.incipit.core.estimate.ambiguous.GridFit;
 import org.incipit.core.estimate.ambiguous.MomentFit;
 import org.incipit.core.estimate.ambiguous.NaiveFit;
 import org.incipit.core.estimate.ambiguous.NaiveRule;
+import org.incipit.core.estimate.delay.DelayEstimator;
+import org.incipit.core.estimate.delay.DelayFit;
+import org.incipit.core.estimate.delay.DelayOptions;
 import org.incipit.core.growth.CountModel;
 import org.incipit.core.growth.EulerLotka;
 import org.incipit.core.growth.GrowthRateEstimator;
 import org.incipit.core.growth.GrowthRateFit;
 import org.incipit.core.growth.GrowthRateOptions;
 import org.incipit.core.inference.Estimate;
-import org.incipit.core.likelihood.LogLikelihood;
 import org.incipit.core.likelihood.MaximumLikelihoodFit;
 import org.incipit.core.likelihood.Maximiser;
-import org.incipit.core.likelihood.ParameterTransform;
-import org.incipit.core.likelihood.Parameterisation;
 import org.incipit.core.observe.AmbiguousStartCases;
 import org.incipit.core.observe.DailyCounts;
 import org.incipit.core.simulate.ExposureModel;
@@ -282,62 +281,17 @@ final class OutbreakModels {
     }
 
     /**
-     * Plain maximum likelihood of a family for exactly observed delays (engine, BFGS), started
-     * from the member with the sample mean and sd.
+     * Plain maximum likelihood of a family for exactly observed delays: the delay estimator's
+     * fit with no growth weighting (r = 0), BFGS from the member with the sample mean and sd, no
+     * quantiles reported.
      */
     static MaximumLikelihoodFit fitDelay(DelayFamily family, double[] x) {
-        int k = family.dimension();
-        double m = 0;
-        for (double v : x) {
-            m += v;
-        }
-        m /= x.length;
-        double ss = 0;
-        for (double v : x) {
-            ss += (v - m) * (v - m);
-        }
-        double[] start = family.ofMeanSd(m, Math.sqrt(ss / (x.length - 1))).parameters();
-        List<ParameterTransform> t = new ArrayList<>();
-        for (DelayFamily.Domain d : family.parameterDomains()) {
-            t.add(d == DelayFamily.Domain.POSITIVE ? ParameterTransform.log() : ParameterTransform.identity());
-        }
-        Parameterisation param = Parameterisation.of(family.parameterNames(), t);
-        LogLikelihood ll = new LogLikelihood() {
-            @Override
-            public int dimension() {
-                return k;
-            }
-
-            @Override
-            public double value(double[] theta) {
-                return valueAndGradient(theta, new double[k]);
-            }
-
-            @Override
-            public double valueAndGradient(double[] theta, double[] g) {
-                ParametricDelay d;
-                try {
-                    d = family.of(theta);
-                } catch (IllegalArgumentException e) {
-                    return Double.NEGATIVE_INFINITY;
-                }
-                java.util.Arrays.fill(g, 0);
-                double v = 0;
-                for (double xi : x) {
-                    v += d.logDensity(xi);
-                    double[] gi = d.logDensityGradient(xi);
-                    for (int j = 0; j < k; j++) {
-                        g[j] += gi[j];
-                    }
-                }
-                return v;
-            }
-        };
-        MaximumLikelihoodFit f = MaximumLikelihoodFit.maximise(param, ll, List.of(start), x.length,
-                Maximiser.bfgs());
-        if (!f.converged() || !f.hasCovariance()) {
+        DelayFit f = DelayEstimator.growthWeighted(x, family, 0, EXACT_DELAYS);
+        if (!f.converged() || !f.fit().hasCovariance()) {
             throw new EstimationException("generation-interval fit: " + f.message());
         }
-        return f;
+        return f.fit();
     }
+
+    private static final DelayOptions EXACT_DELAYS = new DelayOptions(0.95, List.of(), Maximiser.bfgs());
 }
