@@ -434,7 +434,6 @@ final class DelayLogLikelihood implements LogLikelihood {
 
     /** log(F(R) - F(L)) for 0 &le; L &lt; R &le; &infin;, gradient into out. */
     static double logIntervalProbability(ParametricDelay f, double lo, double hi, double[] out) {
-        int k = f.family().dimension();
         if (hi == Double.POSITIVE_INFINITY) {
             if (out != null) {
                 if (lo > 0) {
@@ -452,32 +451,30 @@ final class DelayLogLikelihood implements LogLikelihood {
             return f.logCdf(hi);
         }
         double cHi = f.cdf(hi);
+        boolean gradient = out != null;
         if (cHi <= 0.5) {
             // F(R) - F(L) = F(R) (1 - exp(lF(L) - lF(R))): no cancellation in the lower part
-            double lR = f.logCdf(hi);
-            double lL = f.logCdf(lo);
-            double e = Math.exp(lL - lR);
-            if (out != null) {
-                double[] gR = f.logCdfGradient(hi);
-                double[] gL = f.logCdfGradient(lo);
-                for (int j = 0; j < k; j++) {
-                    out[j] = (gR[j] - e * gL[j]) / (1 - e);
-                }
-            }
-            return lR + Math.log1p(-e);
+            return logDifference(f.logCdf(hi), f.logCdf(lo), gradient ? f.logCdfGradient(hi) : null,
+                    gradient ? f.logCdfGradient(lo) : null, out);
         }
         // S(L) - S(R) = S(L) (1 - exp(lS(R) - lS(L)))
-        double lL = f.logSurvival(lo);
-        double lR = f.logSurvival(hi);
-        double e = Math.exp(lR - lL);
+        return logDifference(f.logSurvival(lo), f.logSurvival(hi), gradient ? f.logSurvivalGradient(lo) : null,
+                gradient ? f.logSurvivalGradient(hi) : null, out);
+    }
+
+    /**
+     * log(A &minus; B) = log A + log1p(&minus;exp(log B &minus; log A)) for 0 &lt; B &lt; A, and, if
+     * {@code out} is not null, its gradient (gA &minus; e gB) / (1 &minus; e) with e = B / A from the
+     * gradients {@code gA}, {@code gB} of log A and log B.
+     */
+    private static double logDifference(double logA, double logB, double[] gA, double[] gB, double[] out) {
+        double e = Math.exp(logB - logA);
         if (out != null) {
-            double[] gL = f.logSurvivalGradient(lo);
-            double[] gR = f.logSurvivalGradient(hi);
-            for (int j = 0; j < k; j++) {
-                out[j] = (gL[j] - e * gR[j]) / (1 - e);
+            for (int j = 0; j < out.length; j++) {
+                out[j] = (gA[j] - e * gB[j]) / (1 - e);
             }
         }
-        return lL + Math.log1p(-e);
+        return logA + Math.log1p(-e);
     }
 
     private static void copy(double[] src, double[] dst) {
