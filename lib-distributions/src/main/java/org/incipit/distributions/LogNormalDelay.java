@@ -225,14 +225,7 @@ public final class LogNormalDelay extends AbstractDelay implements ParametricDel
 
     /** u &gt; 0 with u + log u = arg (u = W(e^arg)): Winitzki's start, then Newton on u + log u. */
     static double lambertW(double arg) {
-        double u;
-        if (arg < 0) {
-            double t = Math.exp(arg);
-            double l = Math.log1p(t);
-            u = l * (1 - Math.log1p(l) / (2 + l));
-        } else {
-            u = Math.max(arg - Math.log(Math.max(arg, 1)) + 0.5, 0.5);
-        }
+        double u = lambertWStart(arg);
         for (int it = 0; it < 20; it++) {
             double du = (u + Math.log(u) - arg) * u / (1 + u);
             u -= du;
@@ -241,6 +234,16 @@ public final class LogNormalDelay extends AbstractDelay implements ParametricDel
             }
         }
         return u;
+    }
+
+    /** Winitzki's approximation to u = W(e^arg) (u + log u = arg): the start of {@link #lambertW}. */
+    static double lambertWStart(double arg) {
+        if (arg < 0) {
+            double t = Math.exp(arg);
+            double l = Math.log1p(t);
+            return l * (1 - Math.log1p(l) / (2 + l));
+        }
+        return Math.max(arg - Math.log(Math.max(arg, 1)) + 0.5, 0.5);
     }
 
     @Override
@@ -282,16 +285,7 @@ public final class LogNormalDelay extends AbstractDelay implements ParametricDel
         double guess = ms;
         if (s > 0) {
             double arg = Math.log(s * sig * sig) + mu + sig * ms;
-            double u;
-            if (arg < 0) {
-                double t = Math.exp(arg);
-                double l = Math.log1p(t);
-                u = l * (1 - Math.log1p(l) / (2 + l));
-            } else {
-                u = arg - Math.log(Math.max(arg, 1)) + 0.5;
-                u = Math.max(u, 0.5);
-            }
-            guess = ms - u / sig;
+            guess = ms - lambertWStart(arg) / sig;
         }
         double split = x > 0 ? w(x) : Double.NEGATIVE_INFINITY;
         double lo = upper ? split : Double.NEGATIVE_INFINITY;
