@@ -15,7 +15,6 @@ import org.incipit.core.estimate.delay.GrowthWeightedEstimator;
 import org.incipit.core.estimate.delay.GrowthWeightedFit;
 import org.incipit.core.estimate.delay.IncubationEstimator;
 import org.incipit.core.estimate.fatality.FatalityEstimator;
-import org.incipit.core.growth.EulerLotka;
 import org.incipit.core.inference.Estimate;
 import org.incipit.core.observe.DailyCounts;
 import org.incipit.core.observe.DelayPairs;
@@ -157,12 +156,7 @@ final class DelayModels {
     static DataGenerator<double[]> backwardIntervals(Scenario s) {
         ParametricDelay g = OutbreakModels.trueDelay(s, "family");
         DelayDistribution tilted = g.tilt(s.truth("r"));
-        if (s.hasTruth("R")) {
-            double r = EulerLotka.reproductionNumber(g, s.truth("r"));
-            if (Math.abs(s.truth("R") - r) > 1e-6 * r) {
-                throw new IllegalArgumentException("truth 'R' (" + s.truth("R") + ") must equal 1 / M_g(-r) = " + r);
-            }
-        }
+        OutbreakModels.checkTruthR(s, g);
         return (rng, sc, n) -> {
             double[] x = new double[n];
             for (int i = 0; i < n; i++) {

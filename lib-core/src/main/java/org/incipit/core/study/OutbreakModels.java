@@ -252,12 +252,7 @@ final class OutbreakModels {
         String name = estimated ? "euler-lotka-estimated-gi" : "euler-lotka-known-gi";
         ParametricDelay gi = DelayFamilies.byName(s.option("gi-family", "gamma"))
                 .ofMeanSd(s.setting("gi-mean"), s.setting("gi-sd"));
-        double rTrue = s.truth("r");
-        double rExpected = EulerLotka.reproductionNumber(gi, rTrue);
-        if (s.hasTruth("R") && Math.abs(s.truth("R") - rExpected) > 1e-6 * rExpected) {
-            throw new IllegalArgumentException("truth 'R' (" + s.truth("R") + ") must equal 1 / M_g(-r) = "
-                    + rExpected + " for the scenario's r and generation interval");
-        }
+        checkTruthR(s, gi);
         int pairs = estimated ? count(s, "gi-pairs", 100) : 0;
         GrowthRateOptions o = GrowthRateOptions.defaults().withLevel(level);
         return StudyEstimator.of(name, List.of("R"), (rng, data) -> {
@@ -278,6 +273,18 @@ final class OutbreakModels {
             ParametricDelay gHat = gi.family().of(g.naturalEstimate());
             return Map.of("R", EulerLotka.reproductionNumberDelta(gHat, g.naturalCovariance(), rate));
         });
+    }
+
+    /**
+     * Checks that a scenario's truth 'R', where given, is 1 / M_g(&minus;r) for its truth r (which
+     * it must have) and generation (or serial) interval g, to 1e-6 relative.
+     */
+    static void checkTruthR(Scenario s, ParametricDelay g) {
+        double expected = EulerLotka.reproductionNumber(g, s.truth("r")); // truth r is required
+        if (s.hasTruth("R") && Math.abs(s.truth("R") - expected) > 1e-6 * expected) {
+            throw new IllegalArgumentException("truth 'R' (" + s.truth("R") + ") must equal 1 / M_g(-r) = "
+                    + expected + " for the scenario's r and generation interval");
+        }
     }
 
     /**
