@@ -10,7 +10,19 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import org.apache.commons.rng.simple.RandomSource;
 import org.incipit.core.EstimationException;
+import org.incipit.core.estimate.ambiguous.AmbiguousStartEstimator;
+import org.incipit.core.estimate.ambiguous.AmbiguousStartFit;
+import org.incipit.core.estimate.ambiguous.ExposureHistory;
+import org.incipit.core.estimate.ambiguous.NaiveFit;
+import org.incipit.core.estimate.ambiguous.NaiveRule;
+import org.incipit.core.estimate.delay.DelayEstimator;
+import org.incipit.core.estimate.delay.DelayFit;
+import org.incipit.core.estimate.delay.DelayOptions;
+import org.incipit.core.estimate.delay.ExposureWindowModel;
+import org.incipit.core.estimate.delay.IncubationEstimator;
+import org.incipit.core.estimate.fatality.FatalityEstimator;
 import org.incipit.core.growth.CountModel;
 import org.incipit.core.growth.EulerLotka;
 import org.incipit.core.growth.GammaPrior;
@@ -19,22 +31,11 @@ import org.incipit.core.growth.InfectivityProfile;
 import org.incipit.core.growth.RenewalEstimator;
 import org.incipit.core.growth.WindowReproduction;
 import org.incipit.core.inference.Estimate;
-import org.incipit.core.estimate.ambiguous.AmbiguousStartEstimator;
-import org.incipit.core.estimate.ambiguous.AmbiguousStartFit;
-import org.incipit.core.estimate.ambiguous.ExposureHistory;
-import org.incipit.core.estimate.ambiguous.NaiveFit;
-import org.incipit.core.estimate.ambiguous.NaiveRule;
 import org.incipit.core.inference.ModelComparison;
 import org.incipit.core.observe.AmbiguousStartCases;
+import org.incipit.core.observe.DailyCounts;
 import org.incipit.core.observe.DelayPairs;
 import org.incipit.core.observe.ExposureWindows;
-import org.incipit.core.estimate.delay.DelayEstimator;
-import org.incipit.core.estimate.delay.DelayFit;
-import org.incipit.core.estimate.delay.DelayOptions;
-import org.incipit.core.estimate.delay.IncubationEstimator;
-import org.incipit.core.estimate.fatality.FatalityEstimator;
-import org.apache.commons.rng.simple.RandomSource;
-import org.incipit.core.observe.DailyCounts;
 import org.incipit.distributions.DelayFamilies;
 import org.incipit.distributions.DelayFamily;
 import org.incipit.distributions.Discretisation;
@@ -507,20 +508,7 @@ final class Analysis {
         for (int i = 0; i < p.size(); i++) {
             last = Math.max(last, p.secondary(i));
         }
-        return new ReadResult<>(copy(p, last), r.file(), r.dataRows(), r.dates(), r.origin(), r.skipped());
-    }
-
-    /** The same pairs with another cut-off (NaN: none); censored pairs are dropped without one. */
-    private static DelayPairs copy(DelayPairs p, double cutoff) {
-        DelayPairs.Builder b = Double.isNaN(cutoff) ? DelayPairs.builder() : DelayPairs.builder(cutoff);
-        for (int i = 0; i < p.size(); i++) {
-            if (p.isObserved(i)) {
-                b.addObserved(p.id(i), p.primary(i), p.secondary(i), p.isDaily(i));
-            } else if (!Double.isNaN(cutoff)) {
-                b.addCensored(p.id(i), p.primary(i), p.isDaily(i));
-            }
-        }
-        return b.build();
+        return new ReadResult<>(p.withCutoff(last), r.file(), r.dataRows(), r.dates(), r.origin(), r.skipped());
     }
 
     private void delaysSection() throws IOException {
@@ -529,7 +517,7 @@ final class Analysis {
         boolean censored = pairs.censoredCount() > 0;
         Fits.DelayFits corrected = Fits.fitAll(DelayFamilies.all(), fam -> censored
                 ? DelayEstimator.censored(pairs, fam, opts) : DelayEstimator.rightTruncated(pairs, fam, opts));
-        DelayPairs plain = copy(pairs, Double.NaN);
+        DelayPairs plain = pairs.observedOnly();
         Fits.DelayFits naive = Fits.fitAll(DelayFamilies.all(), fam -> DelayEstimator.censored(plain, fam, opts));
         deathDelay = corrected.best();
         ObjectNode o = results.putObject("delays");
@@ -658,7 +646,7 @@ final class Analysis {
         ExposureWindows w = windows.data();
         DelayOptions opts = DelayOptions.defaults();
         Fits.DelayFits corrected = Fits.fitAll(DelayFamilies.all(),
-                fam -> IncubationEstimator.fit(w, fam, org.incipit.core.estimate.delay.ExposureWindowModel.intervalCensored(),
+                fam -> IncubationEstimator.fit(w, fam, ExposureWindowModel.intervalCensored(),
                         opts));
         DelayPairs.Builder b = DelayPairs.builder();
         int dropped = 0;
@@ -686,7 +674,7 @@ final class Analysis {
         rows.add(row("sd, naive", n.sd(), truth(t + "/sd")));
         if (growth != null && growth.rate() != 0) {
             DelayFit g = IncubationEstimator.fit(w, c.family(),
-                    org.incipit.core.estimate.delay.ExposureWindowModel.growing(growth.rate()), opts);
+                    ExposureWindowModel.growing(growth.rate()), opts);
             if (g.converged()) {
                 o.set("growingExposure", JsonOutput.fit(Fits.summary(g)));
                 rows.add(row("mean, exposure weighted by the growth rate", g.mean(), truth(t + "/mean")));

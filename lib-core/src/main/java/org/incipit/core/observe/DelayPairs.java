@@ -162,6 +162,46 @@ public final class DelayPairs {
         return size() - observedCount();
     }
 
+    /**
+     * The observed pairs alone, without a cut-off: the data as a fit that ignores truncation and
+     * censoring sees them (censored pairs are left out).
+     *
+     * @return the observed pairs, in order, with no cut-off
+     * @throws ObservationException if no pair is observed
+     */
+    public DelayPairs observedOnly() {
+        return copy(Double.NaN);
+    }
+
+    /**
+     * The same pairs collected up to another cut-off.
+     *
+     * @param cutoff the cut-off in days, finite; every observed secondary time must be at or
+     *               before it
+     * @return the pairs, in order, with that cut-off
+     * @throws IllegalArgumentException if {@code cutoff} is not finite
+     * @throws ObservationException     if a pair does not fit the cut-off
+     */
+    public DelayPairs withCutoff(double cutoff) {
+        if (!Double.isFinite(cutoff)) {
+            throw new IllegalArgumentException("cutoff must be a finite number of days, was " + cutoff);
+        }
+        return copy(cutoff);
+    }
+
+    /** The pairs with cut-off {@code t} (NaN: none, and then the observed pairs only). */
+    private DelayPairs copy(double t) {
+        Builder b = new Builder(t);
+        for (int i = 0; i < size(); i++) {
+            if (observed[i]) {
+                b.addObserved(ids[i], primaries[i], secondaries[i], daily[i]);
+            } else if (!Double.isNaN(t)) {
+                b.addCensored(ids[i], primaries[i], daily[i]);
+            }
+        }
+        return b.build();
+    }
+
     @Override
     public String toString() {
         return "DelayPairs[pairs=" + size() + ", censored=" + censoredCount() + ", cutoff="

@@ -47,7 +47,7 @@ final class DelayModels {
         b.estimator("delay-censored", DelayPairs.class, (s, level) -> delay("delay-censored", s, level,
                 (p, f, o) -> DelayEstimator.censored(p, f, o)));
         b.estimator("delay-observed-only", DelayPairs.class, (s, level) -> delay("delay-observed-only", s, level,
-                (p, f, o) -> DelayEstimator.censored(observedOnly(p), f, o)));
+                (p, f, o) -> DelayEstimator.censored(p.observedOnly(), f, o)));
         b.generator("backward-intervals", double[].class, DelayModels::backwardIntervals);
         b.estimator("interval-growth-weighted", double[].class, (s, level) -> growthWeighted(s, level));
         b.estimator("interval-backward-naive", double[].class, (s, level) -> backwardNaive(s, level));
@@ -123,17 +123,6 @@ final class DelayModels {
             }
             return b.build();
         };
-    }
-
-    /** The observed pairs alone, as if complete (ignores truncation or censoring: the naive fit). */
-    static DelayPairs observedOnly(DelayPairs p) {
-        DelayPairs.Builder b = DelayPairs.builder();
-        for (int i = 0; i < p.size(); i++) {
-            if (p.isObserved(i)) {
-                b.addObserved(p.id(i), p.primary(i), p.secondary(i), p.isDaily(i));
-            }
-        }
-        return b.build();
     }
 
     interface PairFit {

@@ -37,6 +37,32 @@ class DelayPairsTest {
     }
 
     @Test
+    void observedOnlyAndWithCutoffCopyThePairs() {
+        DelayPairs p = DelayPairs.builder(30)
+                .addObserved("P1", 3, 8, true)
+                .addCensored("P2", 27, false)
+                .addObserved("P3", 5, 5)
+                .build();
+        DelayPairs o = p.observedOnly();
+        assertEquals(List.of("P1", "P3"), o.ids());
+        assertArrayEquals(new double[] {3, 5}, o.primaries());
+        assertArrayEquals(new double[] {8, 5}, o.secondaries());
+        assertArrayEquals(new boolean[] {true, false}, o.dailyFlags());
+        assertEquals(OptionalDouble.empty(), o.cutoff());
+        DelayPairs later = p.withCutoff(40);
+        assertEquals(p.ids(), later.ids());
+        assertArrayEquals(new double[] {8, 40, 5}, later.secondaries(), "the censored pair now runs to 40");
+        assertArrayEquals(p.observedFlags(), later.observedFlags());
+        assertArrayEquals(p.dailyFlags(), later.dailyFlags());
+        assertEquals(OptionalDouble.of(40), later.cutoff());
+        assertEquals(OptionalDouble.of(12), o.withCutoff(12).cutoff());
+        assertThrows(IllegalArgumentException.class, () -> p.withCutoff(Double.NaN));
+        assertThrows(ObservationException.class, () -> p.withCutoff(7), "P1's secondary 8 is after 7");
+        rejects("id", "no pairs (at least one pair is required)",
+                () -> DelayPairs.builder(30).addCensored("C", 1, false).build().observedOnly());
+    }
+
+    @Test
     void withoutCutoff() {
         DelayPairs p = DelayPairs.builder().addObserved("A", 1, 100).build();
         assertEquals(OptionalDouble.empty(), p.cutoff());
