@@ -96,8 +96,8 @@ public final class GrowthWeightedEstimator {
     /** Fits at r-hat and r-hat +- se/2, and composes variances. */
     private static final class Composer {
         final DelayFit center;
-        final DelayFit lower;
-        final DelayFit upper;
+        final MaximumLikelihoodFit lower; // refits at r -+ h: only their estimates are used
+        final MaximumLikelihoodFit upper;
         final double r;
         final double se;
         final double h;
@@ -111,16 +111,16 @@ public final class GrowthWeightedEstimator {
             this.level = options.level();
             center = DelayEstimator.growthWeighted(delays, family, r, options);
             if (se > 0) {
-                DoubleFunction<DelayFit> refit = rr -> DelayFits.summarise(family, DelayFits.maximise(family,
+                DoubleFunction<MaximumLikelihoodFit> refit = rr -> DelayFits.maximise(family,
                         DelayEstimator.growthLikelihood(delays, family, rr),
-                        List.of(center.fit().naturalEstimate()), delays.length, options), options);
+                        List.of(center.fit().naturalEstimate()), delays.length, options);
                 lower = refit.apply(r - h);
                 upper = refit.apply(r + h);
             } else {
-                lower = center;
-                upper = center;
+                lower = center.fit();
+                upper = center.fit();
             }
-            for (DelayFit f : new DelayFit[] {center, lower, upper}) {
+            for (MaximumLikelihoodFit f : new MaximumLikelihoodFit[] {center.fit(), lower, upper}) {
                 if (!f.converged()) {
                     throw new EstimationException("growth-weighted " + family.name() + " fit did not converge: "
                             + f.message());
@@ -135,8 +135,8 @@ public final class GrowthWeightedEstimator {
             this.h = 0.5 * se;
             this.level = options.level();
             this.center = fixed;
-            this.lower = fixed;
-            this.upper = fixed;
+            this.lower = fixed.fit();
+            this.upper = fixed.fit();
             if (!fixed.converged()) {
                 throw new EstimationException("fit did not converge: " + fixed.message());
             }
@@ -150,8 +150,8 @@ public final class GrowthWeightedEstimator {
             double seCond = (scale.toUnconstrained(cond.upper()) - qs) / z;
             double var = seCond * seCond;
             if (se > 0) {
-                double qUp = scale.toUnconstrained(q.at(upper.fit().naturalEstimate(), r + h));
-                double qDn = scale.toUnconstrained(q.at(lower.fit().naturalEstimate(), r - h));
+                double qUp = scale.toUnconstrained(q.at(upper.naturalEstimate(), r + h));
+                double qDn = scale.toUnconstrained(q.at(lower.naturalEstimate(), r - h));
                 double dq = (qUp - qDn) / (2 * h);
                 var += dq * dq * se * se;
             }
