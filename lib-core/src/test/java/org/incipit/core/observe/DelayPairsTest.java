@@ -13,13 +13,18 @@ import org.junit.jupiter.api.Test;
 
 class DelayPairsTest {
 
-    @Test
-    void roundTripWithCutoff() {
-        DelayPairs p = DelayPairs.builder(30)
+    /** An observed day-level pair, a pair censored at the cut-off 30, and an exact pair. */
+    private static DelayPairs threePairs() {
+        return DelayPairs.builder(30)
                 .addObserved("P1", 3, 8, true)
                 .addCensored("P2", 27, false)
                 .addObserved("P3", 5, 5)
                 .build();
+    }
+
+    @Test
+    void roundTripWithCutoff() {
+        DelayPairs p = threePairs();
         assertEquals(3, p.size());
         assertEquals(List.of("P1", "P2", "P3"), p.ids());
         assertArrayEquals(new double[] {3, 27, 5}, p.primaries());
@@ -38,11 +43,7 @@ class DelayPairsTest {
 
     @Test
     void observedOnlyAndWithCutoffCopyThePairs() {
-        DelayPairs p = DelayPairs.builder(30)
-                .addObserved("P1", 3, 8, true)
-                .addCensored("P2", 27, false)
-                .addObserved("P3", 5, 5)
-                .build();
+        DelayPairs p = threePairs();
         DelayPairs o = p.observedOnly();
         assertEquals(List.of("P1", "P3"), o.ids());
         assertArrayEquals(new double[] {3, 5}, o.primaries());
